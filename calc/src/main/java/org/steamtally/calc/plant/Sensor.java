@@ -1,0 +1,56 @@
+package org.steamtally.calc.plant;
+
+import java.time.Duration;
+import java.util.Objects;
+import java.util.Optional;
+
+/**
+ * One instrument of a unit, with its uncertainty and plausible range already converted to SI.
+ *
+ * <p>The plant description declares the uncertainty in the sensor's engineering unit, either as a
+ * standard uncertainty (1σ) or as an expanded uncertainty with its coverage factor k; the loader
+ * divides by k, so {@code standardUncertaintySi} is always the GUM standard uncertainty u(x).
+ *
+ * @param id                    tag, unique within the site, e.g. {@code "PT-101"}
+ * @param quantity              what it measures
+ * @param engineeringUnit       the unit its readings arrive in, as declared, e.g. {@code "MPa"}
+ * @param standardUncertaintySi standard uncertainty u(x) in the SI unit of {@code quantity}, &gt; 0
+ * @param uncertaintyBasis      how the uncertainty was declared, kept for reports
+ * @param rangeMinSi            lowest plausible value, SI
+ * @param rangeMaxSi            highest plausible value, SI
+ * @param maxAge                a reading older than this is stale
+ * @param topic                 the MQTT topic it arrives on, when the plant description gives one
+ */
+public record Sensor(
+        String id,
+        Quantity quantity,
+        String engineeringUnit,
+        double standardUncertaintySi,
+        UncertaintyBasis uncertaintyBasis,
+        double rangeMinSi,
+        double rangeMaxSi,
+        Duration maxAge,
+        Optional<String> topic) {
+
+    public Sensor {
+        Objects.requireNonNull(id, "id");
+        Objects.requireNonNull(quantity, "quantity");
+        Objects.requireNonNull(engineeringUnit, "engineeringUnit");
+        Objects.requireNonNull(uncertaintyBasis, "uncertaintyBasis");
+        Objects.requireNonNull(maxAge, "maxAge");
+        Objects.requireNonNull(topic, "topic");
+        if (!(standardUncertaintySi > 0.0) || !Double.isFinite(standardUncertaintySi)) {
+            throw new IllegalArgumentException("sensor " + id + ": standard uncertainty must be a positive number, was "
+                    + standardUncertaintySi + " " + quantity.siUnit());
+        }
+        if (!(rangeMinSi < rangeMaxSi)) {
+            throw new IllegalArgumentException("sensor " + id + ": plausible range min " + rangeMinSi
+                    + " must be below max " + rangeMaxSi + " " + quantity.siUnit());
+        }
+    }
+
+    /** True when an SI value lies within the plausible range, ends included. */
+    public boolean isPlausible(double valueSi) {
+        return valueSi >= rangeMinSi && valueSi <= rangeMaxSi;
+    }
+}
