@@ -1,5 +1,6 @@
 package org.steamtally.calc.plant;
 
+import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
 
@@ -75,7 +76,7 @@ public sealed interface Component {
         }
 
         public List<String> outlets() {
-            java.util.ArrayList<String> out = new java.util.ArrayList<>(extractions);
+            ArrayList<String> out = new ArrayList<>(extractions);
             out.add(outlet);
             return List.copyOf(out);
         }
@@ -148,7 +149,7 @@ public sealed interface Component {
         }
 
         public List<String> inlets() {
-            java.util.ArrayList<String> in = new java.util.ArrayList<>();
+            ArrayList<String> in = new ArrayList<>();
             in.add(feedwaterInlet);
             in.add(steamInlet);
             in.addAll(drainInlets);

@@ -1,5 +1,6 @@
 package org.steamtally.calc.plant;
 
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Objects;
@@ -45,6 +46,6 @@ public record UnitDescription(String id, String name, List<Sensor> sensors, List
     /** Sensors by id, in declaration order. */
     public Map<String, Sensor> sensorsById() {
         return sensors.stream().collect(Collectors.toMap(Sensor::id, Function.identity(),
-                (a, b) -> a, java.util.LinkedHashMap::new));
+                (a, b) -> a, LinkedHashMap::new));
     }
 }
