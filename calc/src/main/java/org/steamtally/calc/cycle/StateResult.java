@@ -1,0 +1,37 @@
+package org.steamtally.calc.cycle;
+
+import java.util.Objects;
+import java.util.Optional;
+import java.util.OptionalDouble;
+
+/**
+ * The computed state at one point of the cycle. An invalid state carries the reason and only the
+ * values that could still be computed; absent values are empty, never NaN.
+ *
+ * <p>JSON (result record): {@code id, p_Pa, T_K, h_J_per_kg, s_J_per_kgK, v_m3_per_kg, x, phase,
+ * saturation_margin_K, valid, reason}.
+ *
+ * @param saturationMarginK superheat (positive, vapour) or subcooling (positive, liquid) in K:
+ *                          the distance in temperature from the saturation line at the state's
+ *                          pressure; 0 on the line; empty above the critical pressure
+ */
+public record StateResult(
+        String id,
+        OptionalDouble pressurePa,
+        OptionalDouble temperatureK,
+        OptionalDouble enthalpyJPerKg,
+        OptionalDouble entropyJPerKgK,
+        OptionalDouble specificVolumeM3PerKg,
+        OptionalDouble quality,
+        Optional<Phase> phase,
+        OptionalDouble saturationMarginK,
+        boolean valid,
+        Optional<String> reason) {
+
+    public StateResult {
+        Objects.requireNonNull(id, "id");
+        if (valid == reason.isPresent()) {
+            throw new IllegalArgumentException("state " + id + ": a reason is given exactly when the state is invalid");
+        }
+    }
+}
