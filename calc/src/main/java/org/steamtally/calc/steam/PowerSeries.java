@@ -188,11 +188,6 @@ final class PowerSeries {
         return new PowerSeries(i, j, n);
     }
 
-    /** Number of terms. */
-    int size() {
-        return termN.length;
-    }
-
     /** Σ nᵢ·x^Iᵢ·y^Jᵢ. x and y must be non-zero where the table has negative exponents of them. */
     double sum(double x, double y) {
         double yInv = needsYInverse ? 1.0 / y : 0.0;

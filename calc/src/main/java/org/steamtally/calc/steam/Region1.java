@@ -161,6 +161,9 @@ public final class Region1 {
     private static final PowerSeries THETA_PS = PowerSeries.ofRows(TABLE_8);
     private static final PowerSeries PI_HS = PowerSeries.ofRows(SUPP_PHS12_TABLE_2);
 
+    /** Start for p(h,s) where the backward equation is not positive: the triple-point pressure. */
+    private static final double FALLBACK_START_PRESSURE_PA = 611.213;
+
     /** Newton iterations allowed before a refined backward method gives up. */
     static final int MAX_NEWTON_ITERATIONS = 8;
     /**
@@ -398,7 +401,7 @@ public final class Region1 {
         if (!(p > 0.0)) {
             // Near h = s = 0 the backward equation may undershoot zero; any small positive start
             // converges, since h and s of the liquid are nearly linear in p.
-            p = 611.213;
+            p = FALLBACK_START_PRESSURE_PA;
         }
         double t = backwardTemperaturePH(p, enthalpy);
         for (int iteration = 0; iteration < maxIterations; iteration++) {

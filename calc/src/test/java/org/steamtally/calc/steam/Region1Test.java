@@ -90,7 +90,8 @@ class Region1Test {
     @Test
     void refinedBackwardMethodsConvergeInFewNewtonSteps() {
         // The backward equations start within ~25 mK, so quadratic convergence needs three steps
-        // to make a step smaller than 1e-9·T; four leaves room for the region's corners.
+        // to make a step smaller than 1e-9·T (three is the most seen on this grid); four leaves
+        // room for inputs between the grid points.
         int bound = 4;
         RoundTrip.region1Grid().forEach(state -> {
             double h = Region1.enthalpy(state.p(), state.t());

@@ -119,7 +119,7 @@ class Region2Test {
     void refinedBackwardMethodsConvergeInFewNewtonSteps() {
         // The backward equations start within ~10 mK (T) and a few ppm (p), so quadratic
         // convergence needs three steps to make a step smaller than 1e-9 of the variable; four
-        // leaves room for the region's corners.
+        // leaves room for inputs between the grid points (three is the most seen on this grid).
         int bound = 4;
         RoundTrip.region2Grid().forEach(state -> {
             double h = Region2.enthalpy(state.p(), state.t());
