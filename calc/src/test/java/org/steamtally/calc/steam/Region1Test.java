@@ -3,6 +3,8 @@ package org.steamtally.calc.steam;
 import static org.junit.jupiter.api.Assertions.assertAll;
 import static org.junit.jupiter.api.Assertions.assertDoesNotThrow;
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.hummeling.if97.IF97;
 import org.junit.jupiter.api.Test;
@@ -100,5 +102,15 @@ class Region1Test {
             assertDoesNotThrow(() -> Region1.temperaturePS(state.p(), s, bound), () -> "T(p,s) at " + state);
             assertDoesNotThrow(() -> Region1.pressureHS(h, s, bound), () -> "p(h,s) at " + state);
         });
+    }
+
+    @Test
+    void iterationThatRunsOutOfStepsRaisesAnErrorNamingTheInputs() {
+        // One Newton step from the backward equation's ~1e-5 relative start cannot end with a step
+        // below 1e-9·T, so a limit of one step must fail loudly rather than return a rough value.
+        IllegalStateException e = assertThrows(IllegalStateException.class,
+                () -> Region1.temperaturePH(3e6, 500e3, 1));
+        assertTrue(e.getMessage().contains("p = 3000000.0 Pa") && e.getMessage().contains("h = 500000.0 J/kg"),
+                e.getMessage());
     }
 }
