@@ -221,4 +221,21 @@ public final class Region3 {
                 throw new IllegalArgumentException("unknown property " + which);
         }
     }
+
+    // ---------------------------------------------------------------------------------------------
+    // From (p, T): IAPWS SR5-05(2016)
+
+    /**
+     * Specific volume, m³/kg, from the backward equation v(p,T) of IAPWS SR5-05(2016) as published,
+     * in the subregion 3a to 3t, or auxiliary subregion 3u to 3z near the critical point, that the
+     * release prescribes for (p, T). Its deviation from the basic equation is within the release's
+     * tolerances (about 1e-6 relative away from the critical point); use {@link #density} for the
+     * value consistent with eq. 28.
+     *
+     * @param p pressure, Pa
+     * @param T temperature, K
+     */
+    public static double backwardVolumePT(double p, double T) {
+        return Region3VolumePT.volume(p / 1e6, T);
+    }
 }

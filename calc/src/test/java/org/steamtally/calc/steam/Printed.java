@@ -24,7 +24,17 @@ final class Printed {
      * with the printed value to half a unit in its last digit.
      */
     static void assertMatches(String printed, double actual, double scale, String what) {
+        assertMatches(printed, actual, scale, what, 0.5);
+    }
+
+    /**
+     * As {@link #assertMatches(String, double, double, String)} with a tolerance of
+     * {@code unitsOfLastDigit} units in the last printed digit, for the rare printed value that is
+     * itself rounded the other way.
+     */
+    static void assertMatches(String printed, double actual, double scale, String what, double unitsOfLastDigit) {
         double expected = Double.parseDouble(printed.trim());
-        assertEquals(expected, actual / scale, halfUnitInLastDigit(printed), what + " against printed " + printed);
+        double tolerance = 2 * halfUnitInLastDigit(printed) * unitsOfLastDigit;
+        assertEquals(expected, actual / scale, tolerance, what + " against printed " + printed);
     }
 }
