@@ -238,4 +238,432 @@ public final class Region3 {
     public static double backwardVolumePT(double p, double T) {
         return Region3VolumePT.volume(p / 1e6, T);
     }
+
+    /**
+     * Density, kg/m³, from pressure and temperature: the backward value of
+     * {@link #backwardVolumePT} refined by Newton's method on p(ρ, T) = p with the basic equation,
+     * to machine precision. Away from the critical point the result reproduces p to a few ulps and
+     * is the density eq. 28 gives; within about 0.1 % of the critical point (p, T) fixes ρ only to
+     * about the cube root of the rounding error, and the iteration stops once the pressure residual
+     * is at rounding level (2e-15 relative), which leaves ρ within some 1e-5 relative at worst.
+     *
+     * @param p pressure, Pa
+     * @param T temperature, K
+     * @throws IllegalStateException if the iteration does not converge within {@value #MAX_ITERATIONS} steps
+     */
+    public static double density(double p, double T) {
+        return solveDensity(p, T, 1 / backwardVolumePT(p, T), 0, "density(p, T)");
+    }
+
+    /**
+     * Saturated-liquid density ρ′, kg/m³, at T for 623.15 K ≤ T &lt; 647.096 K, given the saturation
+     * pressure p_s(T) the caller uses: the solution of p(ρ, T) = p_s on the liquid side, started from
+     * the subregion equation IAPWS SR5-05(2016) assigns to the saturated liquid (3c, 3s, 3u or 3y).
+     *
+     * @param T    temperature, K
+     * @param pSat saturation pressure at T, Pa
+     * @throws IllegalStateException if the iteration does not converge
+     */
+    public static double saturatedLiquidDensity(double T, double pSat) {
+        double pMPa = pSat / 1e6;
+        int subregion = Region3VolumePT.saturatedLiquidSubregion(pMPa);
+        return solveDensity(pSat, T, 1 / Region3VolumePT.volume(subregion, pMPa, T), 1, "saturatedLiquidDensity");
+    }
+
+    /**
+     * Saturated-liquid density ρ′, kg/m³, for 623.15 K ≤ T &lt; 647.096 K, with p_s(T) from the
+     * saturation-pressure equation of IAPWS R7-97(2012), eq. 30.
+     *
+     * @param T temperature, K
+     */
+    public static double saturatedLiquidDensity(double T) {
+        return saturatedLiquidDensity(T, Region3Saturation.pressureMPa(T) * 1e6);
+    }
+
+    /**
+     * Saturated-vapour density ρ″, kg/m³, at T for 623.15 K ≤ T &lt; 647.096 K, given the saturation
+     * pressure p_s(T) the caller uses: the solution of p(ρ, T) = p_s on the vapour side, started from
+     * the subregion equation IAPWS SR5-05(2016) assigns to the saturated vapour (3t, 3r, 3x or 3z).
+     *
+     * @param T    temperature, K
+     * @param pSat saturation pressure at T, Pa
+     * @throws IllegalStateException if the iteration does not converge
+     */
+    public static double saturatedVapourDensity(double T, double pSat) {
+        double pMPa = pSat / 1e6;
+        int subregion = Region3VolumePT.saturatedVapourSubregion(pMPa);
+        return solveDensity(pSat, T, 1 / Region3VolumePT.volume(subregion, pMPa, T), -1, "saturatedVapourDensity");
+    }
+
+    /**
+     * Saturated-vapour density ρ″, kg/m³, for 623.15 K ≤ T &lt; 647.096 K, with p_s(T) from the
+     * saturation-pressure equation of IAPWS R7-97(2012), eq. 30.
+     *
+     * @param T temperature, K
+     */
+    public static double saturatedVapourDensity(double T) {
+        return saturatedVapourDensity(T, Region3Saturation.pressureMPa(T) * 1e6);
+    }
+
+    /** Pressure residual, relative, at which p(ρ, T) is as close to p as rounding allows. */
+    private static final double PRESSURE_RESIDUAL = 2e-15;
+
+    /**
+     * Safeguarded Newton iteration on p(ρ, T) = p. The iterates bracket the root from the sign of
+     * the residual (p rises with ρ on every stable branch); a step that leaves the bracket, or is
+     * taken where ∂p/∂ρ ≤ 0 (inside the van der Waals loop), becomes a bisection or, before a bracket
+     * exists, a 2 % move towards the root along the branch ({@code side} +1 liquid, −1 vapour, 0 either).
+     */
+    private static double solveDensity(double p, double T, double rhoStart, int side, String what) {
+        return solveDensity(p, T, rhoStart, side, what, MAX_ITERATIONS);
+    }
+
+    /** As {@link #solveDensity(double, double, double, int, String)} with a given iteration bound. */
+    static double solveDensity(double p, double T, double rhoStart, int side, String what, int maxIterations) {
+        double rho = rhoStart;
+        double lo = 0;
+        double hi = Double.POSITIVE_INFINITY;
+        double rt = R * T;
+        for (int iteration = 1; iteration <= maxIterations; iteration++) {
+            double delta = rho / RHO_CRIT;
+            double tau = T_CRIT / T;
+            double phi = 0;
+            double dPhiD = 0;
+            double ddPhiDD = 0;
+            double tPhiT = 0;
+            double ttPhiTT = 0;
+            double dtPhiDT = 0;
+            double deltaPower = 1;
+            double tauPower = 1;
+            for (int k = 0; k < TERMS; k++) {
+                if (I_STEP[k]) {
+                    deltaPower *= delta;
+                    tauPower = 1;
+                }
+                tauPower *= PowerSeries.ipow(tau, J_STEP[k]);
+                double term = N[k] * deltaPower * tauPower;
+                int i = I[k];
+                int j = J[k];
+                phi += term;
+                dPhiD += i * term;
+                ddPhiDD += i * (i - 1) * term;
+                tPhiT += j * term;
+                ttPhiTT += j * (j - 1) * term;
+                dtPhiDT += i * j * term;
+            }
+            phi += N1 * Math.log(delta);
+            dPhiD += N1;
+            ddPhiDD -= N1;
+            double residual = rho * rt * dPhiD - p;
+            double slope = rt * (2 * dPhiD + ddPhiDD);
+            if (residual == 0) {
+                return rho;
+            }
+            if (residual < 0) {
+                lo = Math.max(lo, rho);
+            } else {
+                hi = Math.min(hi, rho);
+            }
+            double next = rho - residual / slope;
+            if (!(slope > 0) || !(next > lo) || !(next < hi)) {
+                if (lo > 0 && hi < Double.POSITIVE_INFINITY) {
+                    next = 0.5 * (lo + hi);
+                } else {
+                    boolean denser = slope > 0 || side == 0 ? residual < 0 : side > 0;
+                    next = denser ? rho * 1.02 : rho / 1.02;
+                }
+            }
+            if (Math.abs(next - rho) <= 4 * Math.ulp(rho) || Math.abs(residual) <= PRESSURE_RESIDUAL * p) {
+                return next;
+            }
+            rho = next;
+        }
+        throw new IllegalStateException(what + ": no convergence in " + maxIterations
+                + " Newton steps for p = " + p + " Pa, T = " + T + " K (start " + rhoStart + " kg/m3)");
+    }
+
+    // ---------------------------------------------------------------------------------------------
+    // From (p, h) and (p, s): IAPWS SR3-03(2014)
+
+    /**
+     * Enthalpy h3ab(p), J/kg, on the boundary between subregions 3a and 3b of the (p,h) and (p,s)
+     * backward equations (it runs close to the critical isentrope), for p_c ≤ p ≤ 100 MPa. IAPWS
+     * SR3-03(2014).
+     *
+     * @param p pressure, Pa
+     */
+    public static double boundaryEnthalpy3ab(double p) {
+        return Region3PhPs.h3ab(p / 1e6) * 1e3;
+    }
+
+    /**
+     * Temperature, K, from the backward equation T3a(p,h) (h ≤ h3ab(p)) or T3b(p,h) of IAPWS
+     * SR3-03(2014) as published. For the value consistent with eq. 28 use {@link #temperaturePH}.
+     *
+     * @param p pressure, Pa
+     * @param h specific enthalpy, J/kg
+     */
+    public static double backwardTemperaturePH(double p, double h) {
+        return Region3PhPs.temperaturePH(p / 1e6, h / 1e3);
+    }
+
+    /**
+     * Specific volume, m³/kg, from the backward equation v3a(p,h) (h ≤ h3ab(p)) or v3b(p,h) of IAPWS
+     * SR3-03(2014) as published. For the value consistent with eq. 28 use {@link #densityPH}.
+     *
+     * @param p pressure, Pa
+     * @param h specific enthalpy, J/kg
+     */
+    public static double backwardVolumePH(double p, double h) {
+        return Region3PhPs.volumePH(p / 1e6, h / 1e3);
+    }
+
+    /**
+     * Temperature, K, from the backward equation T3a(p,s) (s ≤ s_c = 4.41202148223476 kJ/(kg·K)) or
+     * T3b(p,s) of IAPWS SR3-03(2014) as published. For the value consistent with eq. 28 use
+     * {@link #temperaturePS}.
+     *
+     * @param p pressure, Pa
+     * @param s specific entropy, J/(kg·K)
+     */
+    public static double backwardTemperaturePS(double p, double s) {
+        return Region3PhPs.temperaturePS(p / 1e6, s / 1e3);
+    }
+
+    /**
+     * Specific volume, m³/kg, from the backward equation v3a(p,s) (s ≤ s_c) or v3b(p,s) of IAPWS
+     * SR3-03(2014) as published. For the value consistent with eq. 28 use {@link #densityPS}.
+     *
+     * @param p pressure, Pa
+     * @param s specific entropy, J/(kg·K)
+     */
+    public static double backwardVolumePS(double p, double s) {
+        return Region3PhPs.volumePS(p / 1e6, s / 1e3);
+    }
+
+    /**
+     * Density, kg/m³, at (p, h) in region 3: the backward values of SR3-03(2014) refined by Newton's
+     * method in (ρ, T) on eq. 28 until p and h are reproduced to rounding level (2e-15 relative) or
+     * the step is a few ulps.
+     *
+     * @param p pressure, Pa
+     * @param h specific enthalpy, J/kg
+     * @throws IllegalStateException if the iteration does not converge within {@value #MAX_ITERATIONS} steps
+     */
+    public static double densityPH(double p, double h) {
+        return solvePH(p, h, WANT_DENSITY, MAX_ITERATIONS);
+    }
+
+    /**
+     * Temperature, K, at (p, h) in region 3, refined as in {@link #densityPH}.
+     *
+     * @param p pressure, Pa
+     * @param h specific enthalpy, J/kg
+     * @throws IllegalStateException if the iteration does not converge within {@value #MAX_ITERATIONS} steps
+     */
+    public static double temperaturePH(double p, double h) {
+        return solvePH(p, h, WANT_TEMPERATURE, MAX_ITERATIONS);
+    }
+
+    /**
+     * Density, kg/m³, at (p, s) in region 3: the backward values of SR3-03(2014) refined by Newton's
+     * method in (ρ, T) on eq. 28 until p and s are reproduced to rounding level.
+     *
+     * @param p pressure, Pa
+     * @param s specific entropy, J/(kg·K)
+     * @throws IllegalStateException if the iteration does not converge within {@value #MAX_ITERATIONS} steps
+     */
+    public static double densityPS(double p, double s) {
+        return solvePS(p, s, WANT_DENSITY, MAX_ITERATIONS);
+    }
+
+    /**
+     * Temperature, K, at (p, s) in region 3, refined as in {@link #densityPS}.
+     *
+     * @param p pressure, Pa
+     * @param s specific entropy, J/(kg·K)
+     * @throws IllegalStateException if the iteration does not converge within {@value #MAX_ITERATIONS} steps
+     */
+    public static double temperaturePS(double p, double s) {
+        return solvePS(p, s, WANT_TEMPERATURE, MAX_ITERATIONS);
+    }
+
+    /**
+     * Saturation pressure p3sat(h), Pa, on the boundary between regions 3 and 4, for
+     * h′(623.15 K) ≤ h ≤ h″(623.15 K) (1.670858218 to 2.563592004 MJ/kg). IAPWS SR3-03(2014).
+     *
+     * @param h specific enthalpy, J/kg
+     */
+    public static double saturationPressureH(double h) {
+        return Region3PhPs.saturationPressureH(h / 1e3) * 1e6;
+    }
+
+    /**
+     * Saturation pressure p3sat(s), Pa, on the boundary between regions 3 and 4, for
+     * s′(623.15 K) ≤ s ≤ s″(623.15 K) (3.778281340 to 5.210887825 kJ/(kg·K)). IAPWS SR3-03(2014).
+     *
+     * @param s specific entropy, J/(kg·K)
+     */
+    public static double saturationPressureS(double s) {
+        return Region3PhPs.saturationPressureS(s / 1e3) * 1e6;
+    }
+
+    // ---------------------------------------------------------------------------------------------
+    // From (h, s): IAPWS SR4-04(2014)
+
+    /**
+     * Pressure, Pa, from the backward equation p3a(h,s) (s ≤ s_c = 4.41202148223476 kJ/(kg·K)) or
+     * p3b(h,s) of IAPWS SR4-04(2014) as published. For the value consistent with eq. 28 use
+     * {@link #pressureHS}.
+     *
+     * @param h specific enthalpy, J/kg
+     * @param s specific entropy, J/(kg·K)
+     */
+    public static double backwardPressureHS(double h, double s) {
+        return Region3Hs.pressure(h / 1e3, s / 1e3) * 1e6;
+    }
+
+    /**
+     * Pressure, Pa, at (h, s) in region 3: starting from p3(h,s) of SR4-04(2014) and T, v from the
+     * (p,h) equations of SR3-03(2014) at that pressure, Newton's method in (ρ, T) on eq. 28 until h
+     * and s are reproduced to rounding level; the pressure of eq. 28 at the converged (ρ, T).
+     *
+     * @param h specific enthalpy, J/kg
+     * @param s specific entropy, J/(kg·K)
+     * @throws IllegalStateException if the iteration does not converge within {@value #MAX_ITERATIONS} steps
+     */
+    public static double pressureHS(double h, double s) {
+        return solveHS(h, s, MAX_ITERATIONS);
+    }
+
+    private static final int WANT_DENSITY = 0;
+    private static final int WANT_TEMPERATURE = 1;
+    private static final int WANT_PRESSURE = 2;
+
+    private static final int MODE_PH = 0;
+    private static final int MODE_PS = 1;
+    private static final int MODE_HS = 2;
+
+    static double solvePH(double p, double h, int want, int maxIterations) {
+        double pMPa = p / 1e6;
+        double hKJ = h / 1e3;
+        return solve2d(MODE_PH, p, h, 1 / Region3PhPs.volumePH(pMPa, hKJ), Region3PhPs.temperaturePH(pMPa, hKJ),
+                want, maxIterations);
+    }
+
+    static double solvePS(double p, double s, int want, int maxIterations) {
+        double pMPa = p / 1e6;
+        double sKJ = s / 1e3;
+        return solve2d(MODE_PS, p, s, 1 / Region3PhPs.volumePS(pMPa, sKJ), Region3PhPs.temperaturePS(pMPa, sKJ),
+                want, maxIterations);
+    }
+
+    static double solveHS(double h, double s, int maxIterations) {
+        double hKJ = h / 1e3;
+        double pMPa = Region3Hs.pressure(hKJ, s / 1e3);
+        return solve2d(MODE_HS, h, s, 1 / Region3PhPs.volumePH(pMPa, hKJ), Region3PhPs.temperaturePH(pMPa, hKJ),
+                WANT_PRESSURE, maxIterations);
+    }
+
+    /** Largest relative density change and temperature change, K, of one Newton step. */
+    private static final double MAX_DENSITY_STEP = 0.3;
+    private static final double MAX_TEMPERATURE_STEP = 20;
+
+    /**
+     * Newton's method in (ρ, T) for two of p, h, s given as {@code a}, {@code b}: (p, h), (p, s) or
+     * (h, s) by {@code mode}. The Jacobian comes from the same pass over Table 30 as the residuals,
+     * using ∂p/∂ρ = RT(2δφ_δ + δ²φ_δδ), ∂p/∂T = ρR(δφ_δ − δτφ_δτ), ∂h/∂ρ = (RT/ρ)(δτφ_δτ + δφ_δ + δ²φ_δδ),
+     * ∂h/∂T = R(δφ_δ − τ²φ_ττ − δτφ_δτ), ∂s/∂ρ = (R/ρ)(δτφ_δτ − δφ_δ), ∂s/∂T = −Rτ²φ_ττ/T. A step is
+     * shortened to at most 30 % in ρ and 20 K in T, which only the first step from a poor start needs.
+     */
+    private static double solve2d(int mode, double a, double b, double rhoStart, double tStart, int want,
+                                  int maxIterations) {
+        double rho = rhoStart;
+        double T = tStart;
+        for (int iteration = 1; iteration <= maxIterations; iteration++) {
+            double delta = rho / RHO_CRIT;
+            double tau = T_CRIT / T;
+            double phi = 0;
+            double dPhiD = 0;
+            double ddPhiDD = 0;
+            double tPhiT = 0;
+            double ttPhiTT = 0;
+            double dtPhiDT = 0;
+            double deltaPower = 1;
+            double tauPower = 1;
+            for (int k = 0; k < TERMS; k++) {
+                if (I_STEP[k]) {
+                    deltaPower *= delta;
+                    tauPower = 1;
+                }
+                tauPower *= PowerSeries.ipow(tau, J_STEP[k]);
+                double term = N[k] * deltaPower * tauPower;
+                int i = I[k];
+                int j = J[k];
+                phi += term;
+                dPhiD += i * term;
+                ddPhiDD += i * (i - 1) * term;
+                tPhiT += j * term;
+                ttPhiTT += j * (j - 1) * term;
+                dtPhiDT += i * j * term;
+            }
+            phi += N1 * Math.log(delta);
+            dPhiD += N1;
+            ddPhiDD -= N1;
+            double rt = R * T;
+            double f1;
+            double f2;
+            double j11;
+            double j12;
+            double j21;
+            double j22;
+            if (mode == MODE_HS) {
+                f1 = rt * (tPhiT + dPhiD) - a;
+                j11 = rt / rho * (dtPhiDT + dPhiD + ddPhiDD);
+                j12 = R * (dPhiD - ttPhiTT - dtPhiDT);
+            } else {
+                f1 = rho * rt * dPhiD - a;
+                j11 = rt * (2 * dPhiD + ddPhiDD);
+                j12 = rho * R * (dPhiD - dtPhiDT);
+            }
+            if (mode == MODE_PH) {
+                f2 = rt * (tPhiT + dPhiD) - b;
+                j21 = rt / rho * (dtPhiDT + dPhiD + ddPhiDD);
+                j22 = R * (dPhiD - ttPhiTT - dtPhiDT);
+            } else {
+                f2 = R * (tPhiT - phi) - b;
+                j21 = R / rho * (dtPhiDT - dPhiD);
+                j22 = -R * ttPhiTT / T;
+            }
+            double det = j11 * j22 - j12 * j21;
+            double dRho = (f1 * j22 - f2 * j12) / det;
+            double dT = (j11 * f2 - j21 * f1) / det;
+            double shorten = 1;
+            if (Math.abs(dRho) > MAX_DENSITY_STEP * rho) {
+                shorten = MAX_DENSITY_STEP * rho / Math.abs(dRho);
+            }
+            if (Math.abs(dT) * shorten > MAX_TEMPERATURE_STEP) {
+                shorten = MAX_TEMPERATURE_STEP / Math.abs(dT);
+            }
+            double rhoNext = rho - shorten * dRho;
+            double tNext = T - shorten * dT;
+            boolean stepAtRounding = Math.abs(rhoNext - rho) <= 4 * Math.ulp(rho)
+                    && Math.abs(tNext - T) <= 4 * Math.ulp(T);
+            boolean residualAtRounding = Math.abs(f1) <= PRESSURE_RESIDUAL * Math.abs(a)
+                    && Math.abs(f2) <= PRESSURE_RESIDUAL * Math.abs(b);
+            if (Double.isFinite(rhoNext) && Double.isFinite(tNext) && rhoNext > 0 && tNext > 0) {
+                rho = rhoNext;
+                T = tNext;
+            }
+            if (stepAtRounding || residualAtRounding) {
+                if (want == WANT_DENSITY) {
+                    return rho;
+                }
+                return want == WANT_TEMPERATURE ? T : pressure(rho, T);
+            }
+        }
+        String[] names = {"(p, h)", "(p, s)", "(h, s)"};
+        throw new IllegalStateException("region 3 from " + names[mode] + ": no convergence in " + maxIterations
+                + " Newton steps for " + a + ", " + b + " (start rho = " + rhoStart + " kg/m3, T = " + tStart + " K)");
+    }
 }
