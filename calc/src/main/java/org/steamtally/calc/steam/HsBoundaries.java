@@ -27,13 +27,16 @@ public final class HsBoundaries {
     public static final double S_2BC = 5.85e3;
     /** s″(273.15 K), J/(kg·K): upper end of h″2ab(s) and of T_sat(h,s). IAPWS SR4-04(2014). */
     public static final double S_SAT_VAPOUR_273 = 9.155759395e3;
-    /** Lower entropy end of the B23 boundary, J/(kg·K) (at 623.15 K, 16.529 MPa). IAPWS SR4-04(2014). */
+    /**
+     * Smallest entropy along the B23 boundary, J/(kg·K): B23 is roughly an isentrope, and T_B23(h,s)
+     * is valid for s between this and {@link #S_B23_MAX}. IAPWS SR4-04(2014).
+     */
     public static final double S_B23_MIN = 5.048096828e3;
-    /** Upper entropy end of the B23 boundary, J/(kg·K) (at 863.15 K, 100 MPa). IAPWS SR4-04(2014). */
+    /** Largest entropy along the B23 boundary, J/(kg·K), reached at 863.15 K and 100 MPa. IAPWS SR4-04(2014). */
     public static final double S_B23_MAX = 5.260578707e3;
-    /** Lower enthalpy end of the B23 boundary, J/kg. IAPWS SR4-04(2014). */
+    /** Lower enthalpy end of the B23 boundary, J/kg: h″(623.15 K). IAPWS SR4-04(2014). */
     public static final double H_B23_MIN = 2.563592004e6;
-    /** Upper enthalpy end of the B23 boundary, J/kg. IAPWS SR4-04(2014). */
+    /** Upper enthalpy end of the B23 boundary, J/kg, at 863.15 K and 100 MPa. IAPWS SR4-04(2014). */
     public static final double H_B23_MAX = 2.812942061e6;
 
     /** IAPWS SR4-04(2014): h′1(s), η = Σ nᵢ (σ − 1.09)^Iᵢ (σ + 0.366e-4)^Jᵢ with h* = 1700 kJ/kg, s* = 3.8 kJ/(kg K). */
