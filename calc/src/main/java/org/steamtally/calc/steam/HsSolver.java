@@ -32,7 +32,7 @@ final class HsSolver {
     /** Saturation-temperature solve: stop when a step moves the estimate less than this, K. */
     private static final double T_TOLERANCE_K = 1e-12 * T_C;
     private static final int MAX_ITERATIONS = 100;
-    /** Region 5 pressure solve: relative step at which the pressure counts as converged. */
+    /** Region 5 solve: relative steps of T and p at which the state counts as converged. */
     private static final double P_TOLERANCE = 1e-14;
     private static final int MAX_ITERATIONS_REGION_5 = 50;
 
@@ -132,17 +132,24 @@ final class HsSolver {
     }
 
     /**
-     * Region 5 has no (h, s) backward equation. Along an isentrope dh = v dp, so Newton on ln p
-     * with the step (h − h(p, s)) / (p v) converges quickly from any start in the region.
+     * Region 5 has no (h, s) backward equation. Its vapour is nearly an ideal gas, for which
+     * dh = cp dT and ds = cp dT / T − R d(ln p); iterating with that Jacobian on the real residuals
+     * converges from any start in the region, the factor per step being the small departure from
+     * ideality.
+     *
+     * @return the pressure, Pa (possibly outside region 5; the caller checks)
      */
     private static double region5Pressure(double h, double s) {
+        double T = 1600.0;
         double lnP = Math.log(1e6);
         for (int i = 0; i < MAX_ITERATIONS_REGION_5; i++) {
             double p = Math.exp(lnP);
-            double T = Region5.temperaturePS(p, s);
-            double step = (h - Region5.enthalpy(p, T)) / (p * Region5.specificVolume(p, T));
-            lnP += Math.max(-2.0, Math.min(2.0, step));
-            if (Math.abs(step) < P_TOLERANCE) {
+            double cp = Region5.isobaricHeatCapacity(p, T);
+            double dT = (h - Region5.enthalpy(p, T)) / cp;
+            double dLnP = (Region5.entropy(p, T) + cp * dT / T - s) / If97Constants.R;
+            T = Math.max(Steam.MAX_TEMPERATURE_REGION_2_K * 0.9, T + dT);
+            lnP += Math.max(-3.0, Math.min(3.0, dLnP));
+            if (Math.abs(dT) < P_TOLERANCE * T && Math.abs(dLnP) < P_TOLERANCE) {
                 return Math.exp(lnP);
             }
         }

@@ -129,6 +129,31 @@ final class PowerSeries {
         return of(i, j, n);
     }
 
+    /**
+     * A series from a table written flat as consecutive (I, J, n) triples in the order printed in
+     * the release, the layout of the supplementary releases' tables here.
+     */
+    static PowerSeries ofTriples(double[] table) {
+        if (table.length % 3 != 0) {
+            throw new IllegalArgumentException("a coefficient table holds (I, J, n) triples, got "
+                    + table.length + " values");
+        }
+        double[][] rows = new double[table.length / 3][];
+        for (int k = 0; k < rows.length; k++) {
+            rows[k] = new double[] {table[3 * k], table[3 * k + 1], table[3 * k + 2]};
+        }
+        return ofRows(rows);
+    }
+
+    /** Σ nᵢ·x^i for i = 0, 1, ..., by Horner's rule: the one-argument boundary equations. */
+    static double polynomial(double[] n, double x) {
+        double total = 0.0;
+        for (int k = n.length - 1; k >= 0; k--) {
+            total = total * x + n[k];
+        }
+        return total;
+    }
+
     private static int whole(double value, int row) {
         long rounded = Math.round(value);
         if (rounded != value) {
@@ -212,8 +237,14 @@ final class PowerSeries {
         return outer;
     }
 
-    /** b^e for e ≥ 0 by repeated squaring; the small exponents that dominate are special-cased. */
+    /**
+     * b^e by repeated squaring; the small exponents that dominate are special-cased, and a negative
+     * exponent gives the reciprocal.
+     */
     static double ipow(double b, int e) {
+        if (e < 0) {
+            return 1.0 / ipow(b, -e);
+        }
         switch (e) {
             case 0:
                 return 1.0;
