@@ -155,8 +155,12 @@ public final class PlantValidator {
             indexComponents();
             checkStates();
             checkComponents();
+            int before = problems.size();
             checkConnections();
-            checkDeterminability();
+            // Flow balances over a broken flow graph would only repeat the connection problems.
+            if (problems.size() == before) {
+                checkDeterminability();
+            }
         }
 
         private void add(String path, Kind kind, String message, String... subjects) {

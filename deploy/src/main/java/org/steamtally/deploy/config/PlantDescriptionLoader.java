@@ -395,6 +395,19 @@ public final class PlantDescriptionLoader {
             return seq.getValue();
         }
 
+        /** The id a mapping declares, read ahead so that messages about its other keys can name it. */
+        private static String peekId(Node node, String kind) {
+            if (node instanceof MappingNode map) {
+                for (NodeTuple tuple : map.getValue()) {
+                    if (tuple.getKeyNode() instanceof ScalarNode key && key.getValue().equals("id")
+                            && tuple.getValueNode() instanceof ScalarNode value && !value.getValue().isBlank()) {
+                        return kind + " \"" + value.getValue().strip() + "\"";
+                    }
+                }
+            }
+            return "a " + kind;
+        }
+
         private <T> T construct(Node at, Supplier<T> constructor) {
             try {
                 return constructor.get();
@@ -580,7 +593,7 @@ public final class PlantDescriptionLoader {
         }
 
         private UnitDescription readUnit(Node node, String path, UnitIndex index) {
-            Map<String, Node> entries = mapping(node, path, "a unit",
+            Map<String, Node> entries = mapping(node, path, peekId(node, "unit"),
                     Set.of("id", "name", "dead_state", "sensors", "states", "components"));
             if (entries == null) {
                 return null;
@@ -658,7 +671,7 @@ public final class PlantDescriptionLoader {
         }
 
         private Sensor readSensor(Node node, String path, UnitIndex index) {
-            Map<String, Node> entries = mapping(node, path, "a sensor",
+            Map<String, Node> entries = mapping(node, path, peekId(node, "sensor"),
                     Set.of("id", "quantity", "unit", "uncertainty", "range", "max_age", "topic"));
             if (entries == null) {
                 return null;
@@ -768,7 +781,7 @@ public final class PlantDescriptionLoader {
         }
 
         private StateDefinition readState(Node node, String path, UnitIndex index) {
-            Map<String, Node> entries = mapping(node, path, "a state", Set.of("id", "fixed_by", "flow"));
+            Map<String, Node> entries = mapping(node, path, peekId(node, "state"), Set.of("id", "fixed_by", "flow"));
             if (entries == null) {
                 return null;
             }
