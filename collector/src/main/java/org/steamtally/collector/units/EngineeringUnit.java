@@ -146,6 +146,22 @@ public enum EngineeringUnit {
     }
 
     /**
+     * Converts an SI value to this absolute unit.
+     *
+     * @param si a finite value in the SI unit of {@link #quantity()}
+     * @return the value in this unit
+     * @throws IllegalStateException    for a gauge unit, which needs the atmospheric pressure
+     * @throws IllegalArgumentException for a non-finite value
+     */
+    public double fromSi(double si) {
+        if (gauge) {
+            throw new IllegalStateException(code + " is a gauge pressure: convert it with the site's atmospheric"
+                    + " pressure, fromSi(si, atmosphericPa)");
+        }
+        return requireFinite(si) / scale - zeroOffset;
+    }
+
+    /**
      * Converts a value to SI; a gauge pressure is added to the atmospheric pressure.
      *
      * @param value         a finite value in this unit

@@ -2,105 +2,36 @@ package org.steamtally.deploy.props;
 
 import java.util.Arrays;
 import java.util.Iterator;
+import org.steamtally.collector.units.EngineeringUnit;
 import picocli.CommandLine.ITypeConverter;
 import picocli.CommandLine.TypeConversionException;
 
 /**
- * The units of the {@code props} input and output columns. Specific volume (m³/kg), speed of sound
- * (m/s) and vapour quality (unitless) are the same in both systems.
+ * The units of the {@code props} input and output columns, as named units of the collector's unit
+ * table, so that every conversion of the project goes through one place. Specific entropy and
+ * heat capacity take the energy unit per kelvin; specific volume (m³/kg), speed of sound (m/s) and
+ * vapour quality (unitless) are the same in both systems.
  */
 public enum UnitSystem {
 
     /** SI base units: Pa, K, J/kg, J/(kg·K). */
-    SI("si") {
-        @Override
-        public double pressureToSi(double value) {
-            return value;
-        }
-
-        @Override
-        public double pressureFromSi(double pascal) {
-            return pascal;
-        }
-
-        @Override
-        public double temperatureToSi(double value) {
-            return value;
-        }
-
-        @Override
-        public double temperatureFromSi(double kelvin) {
-            return kelvin;
-        }
-
-        @Override
-        public double specificEnergyToSi(double value) {
-            return value;
-        }
-
-        @Override
-        public double specificEnergyFromSi(double joulePerKilogram) {
-            return joulePerKilogram;
-        }
-
-        @Override
-        public double specificEntropyToSi(double value) {
-            return value;
-        }
-
-        @Override
-        public double specificEntropyFromSi(double joulePerKilogramKelvin) {
-            return joulePerKilogramKelvin;
-        }
-    },
+    SI("si", EngineeringUnit.PASCAL, EngineeringUnit.KELVIN, EngineeringUnit.JOULE_PER_KILOGRAM),
 
     /** kPa, °C, kJ/kg, kJ/(kg·K), as plant instruments and heat balances usually show them. */
-    ENGINEERING("engineering") {
-        @Override
-        public double pressureToSi(double kilopascal) {
-            return EngineeringUnits.fromKilopascal(kilopascal);
-        }
-
-        @Override
-        public double pressureFromSi(double pascal) {
-            return EngineeringUnits.toKilopascal(pascal);
-        }
-
-        @Override
-        public double temperatureToSi(double celsius) {
-            return EngineeringUnits.fromCelsius(celsius);
-        }
-
-        @Override
-        public double temperatureFromSi(double kelvin) {
-            return EngineeringUnits.toCelsius(kelvin);
-        }
-
-        @Override
-        public double specificEnergyToSi(double kilojoulePerKilogram) {
-            return EngineeringUnits.fromKilojoulePerKilogram(kilojoulePerKilogram);
-        }
-
-        @Override
-        public double specificEnergyFromSi(double joulePerKilogram) {
-            return EngineeringUnits.toKilojoulePerKilogram(joulePerKilogram);
-        }
-
-        @Override
-        public double specificEntropyToSi(double kilojoulePerKilogramKelvin) {
-            return EngineeringUnits.fromKilojoulePerKilogramKelvin(kilojoulePerKilogramKelvin);
-        }
-
-        @Override
-        public double specificEntropyFromSi(double joulePerKilogramKelvin) {
-            return EngineeringUnits.toKilojoulePerKilogramKelvin(joulePerKilogramKelvin);
-        }
-    };
+    ENGINEERING("engineering", EngineeringUnit.KILOPASCAL, EngineeringUnit.CELSIUS,
+            EngineeringUnit.KILOJOULE_PER_KILOGRAM);
 
     private final String optionValue;
+    private final EngineeringUnit pressure;
+    private final EngineeringUnit temperature;
+    private final EngineeringUnit specificEnergy;
 
-    UnitSystem(String optionValue) {
+    UnitSystem(String optionValue, EngineeringUnit pressure, EngineeringUnit temperature,
+               EngineeringUnit specificEnergy) {
         this.optionValue = optionValue;
+        this.pressure = pressure;
+        this.temperature = temperature;
+        this.specificEnergy = specificEnergy;
     }
 
     /** The name given to {@code --units}, e.g. {@code engineering}. */
@@ -109,28 +40,44 @@ public enum UnitSystem {
     }
 
     /** Pressure in Pa from this system's pressure unit. */
-    public abstract double pressureToSi(double value);
+    public double pressureToSi(double value) {
+        return pressure.toSi(value);
+    }
 
     /** Pressure in this system's unit from Pa. */
-    public abstract double pressureFromSi(double pascal);
+    public double pressureFromSi(double pascal) {
+        return pressure.fromSi(pascal);
+    }
 
     /** Temperature in K from this system's temperature unit. */
-    public abstract double temperatureToSi(double value);
+    public double temperatureToSi(double value) {
+        return temperature.toSi(value);
+    }
 
     /** Temperature in this system's unit from K. */
-    public abstract double temperatureFromSi(double kelvin);
+    public double temperatureFromSi(double kelvin) {
+        return temperature.fromSi(kelvin);
+    }
 
     /** Specific enthalpy or internal energy in J/kg from this system's unit. */
-    public abstract double specificEnergyToSi(double value);
+    public double specificEnergyToSi(double value) {
+        return specificEnergy.toSi(value);
+    }
 
     /** Specific enthalpy or internal energy in this system's unit from J/kg. */
-    public abstract double specificEnergyFromSi(double joulePerKilogram);
+    public double specificEnergyFromSi(double joulePerKilogram) {
+        return specificEnergy.fromSi(joulePerKilogram);
+    }
 
-    /** Specific entropy or heat capacity in J/(kg·K) from this system's unit. */
-    public abstract double specificEntropyToSi(double value);
+    /** Specific entropy or heat capacity in J/(kg·K) from this system's unit (energy unit per kelvin). */
+    public double specificEntropyToSi(double value) {
+        return specificEnergy.toSi(value);
+    }
 
     /** Specific entropy or heat capacity in this system's unit from J/(kg·K). */
-    public abstract double specificEntropyFromSi(double joulePerKilogramKelvin);
+    public double specificEntropyFromSi(double joulePerKilogramKelvin) {
+        return specificEnergy.fromSi(joulePerKilogramKelvin);
+    }
 
     /** An input quantity's value in SI from this system's unit for it. */
     public double toSi(Quantity quantity, double value) {
