@@ -213,6 +213,41 @@ final class PowerSeries {
         return new PowerSeries(i, j, n);
     }
 
+    // The evaluation plan, read by the generator of the straight-line sums (calc/src/test).
+
+    int[] groupEnds() {
+        return groupEnd.clone();
+    }
+
+    int[] xSteps() {
+        return xStep.clone();
+    }
+
+    int[] ySteps() {
+        return yStep.clone();
+    }
+
+    int[] groupYMins() {
+        return groupYMin.clone();
+    }
+
+    double[] coefficients() {
+        return coef.clone();
+    }
+
+    int smallestI() {
+        return xMin;
+    }
+
+    boolean needsYInverse() {
+        return needsYInverse;
+    }
+
+    /** Whether the series has no term in x, so that its sum does not depend on x. */
+    boolean isPolynomialInYOnly() {
+        return groupCount <= 1 && xMin == 0;
+    }
+
     /** Σ nᵢ·x^Iᵢ·y^Jᵢ. x and y must be non-zero where the table has negative exponents of them. */
     double sum(double x, double y) {
         double yInv = needsYInverse ? 1.0 / y : 0.0;

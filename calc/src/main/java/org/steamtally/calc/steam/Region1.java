@@ -150,15 +150,15 @@ public final class Region1 {
     };
 
     // γ as a series in x = 7.1 − π and y = τ − 1.222, and its derivatives; ∂/∂π = −∂/∂x.
-    private static final PowerSeries GAMMA = PowerSeries.ofRows(TABLE_2);
-    private static final PowerSeries GAMMA_X = GAMMA.derivativeX();
-    private static final PowerSeries GAMMA_Y = GAMMA.derivativeY();
-    private static final PowerSeries GAMMA_XX = GAMMA_X.derivativeX();
-    private static final PowerSeries GAMMA_XY = GAMMA_X.derivativeY();
-    private static final PowerSeries GAMMA_YY = GAMMA_Y.derivativeY();
+    static final PowerSeries GAMMA = PowerSeries.ofRows(TABLE_2);
+    static final PowerSeries GAMMA_X = GAMMA.derivativeX();
+    static final PowerSeries GAMMA_Y = GAMMA.derivativeY();
+    static final PowerSeries GAMMA_XX = GAMMA_X.derivativeX();
+    static final PowerSeries GAMMA_XY = GAMMA_X.derivativeY();
+    static final PowerSeries GAMMA_YY = GAMMA_Y.derivativeY();
 
-    private static final PowerSeries THETA_PH = PowerSeries.ofRows(TABLE_6);
-    private static final PowerSeries THETA_PS = PowerSeries.ofRows(TABLE_8);
+    static final PowerSeries THETA_PH = PowerSeries.ofRows(TABLE_6);
+    static final PowerSeries THETA_PS = PowerSeries.ofRows(TABLE_8);
     private static final PowerSeries PI_HS = PowerSeries.ofRows(SUPP_PHS12_TABLE_2);
 
     /** Start for p(h,s) where the backward equation is not positive: the triple-point pressure. */
@@ -185,7 +185,7 @@ public final class Region1 {
     public static double specificVolume(double pressurePa, double temperatureK) {
         double x = PI_SHIFT - pressurePa / P_STAR_PA;
         double y = T_STAR_K / temperatureK - TAU_SHIFT;
-        return -R * temperatureK * GAMMA_X.sum(x, y) / P_STAR_PA;
+        return -R * temperatureK * Region1Sums.gammaX(x, y) / P_STAR_PA;
     }
 
     /**
@@ -199,7 +199,7 @@ public final class Region1 {
         double x = PI_SHIFT - pressurePa / P_STAR_PA;
         double y = T_STAR_K / temperatureK - TAU_SHIFT;
         // RT·τ = R·T*, so h needs no division by T.
-        return R * T_STAR_K * GAMMA_Y.sum(x, y);
+        return R * T_STAR_K * Region1Sums.gammaY(x, y);
     }
 
     /**
@@ -213,7 +213,7 @@ public final class Region1 {
         double x = PI_SHIFT - pressurePa / P_STAR_PA;
         double tau = T_STAR_K / temperatureK;
         double y = tau - TAU_SHIFT;
-        return R * (tau * GAMMA_Y.sum(x, y) - GAMMA.sum(x, y));
+        return R * (tau * Region1Sums.gammaY(x, y) - Region1Sums.gamma(x, y));
     }
 
     /**
@@ -228,7 +228,7 @@ public final class Region1 {
         double x = PI_SHIFT - pi;
         double tau = T_STAR_K / temperatureK;
         double y = tau - TAU_SHIFT;
-        return R * temperatureK * (tau * GAMMA_Y.sum(x, y) + pi * GAMMA_X.sum(x, y));
+        return R * temperatureK * (tau * Region1Sums.gammaY(x, y) + pi * Region1Sums.gammaX(x, y));
     }
 
     /**
@@ -242,7 +242,7 @@ public final class Region1 {
         double x = PI_SHIFT - pressurePa / P_STAR_PA;
         double tau = T_STAR_K / temperatureK;
         double y = tau - TAU_SHIFT;
-        return -R * tau * tau * GAMMA_YY.sum(x, y);
+        return -R * tau * tau * Region1Sums.gammaYY(x, y);
     }
 
     /**
@@ -257,10 +257,10 @@ public final class Region1 {
         double x = PI_SHIFT - pressurePa / P_STAR_PA;
         double tau = T_STAR_K / temperatureK;
         double y = tau - TAU_SHIFT;
-        double gPi = -GAMMA_X.sum(x, y);
-        double gPiPi = GAMMA_XX.sum(x, y);
-        double gPiTau = -GAMMA_XY.sum(x, y);
-        double gTauTau = GAMMA_YY.sum(x, y);
+        double gPi = -Region1Sums.gammaX(x, y);
+        double gPiPi = Region1Sums.gammaXX(x, y);
+        double gPiTau = -Region1Sums.gammaXY(x, y);
+        double gTauTau = Region1Sums.gammaYY(x, y);
         double a = gPi - tau * gPiTau;
         return R * (-tau * tau * gTauTau + a * a / gPiPi);
     }
@@ -276,10 +276,10 @@ public final class Region1 {
         double x = PI_SHIFT - pressurePa / P_STAR_PA;
         double tau = T_STAR_K / temperatureK;
         double y = tau - TAU_SHIFT;
-        double gPi = -GAMMA_X.sum(x, y);
-        double gPiPi = GAMMA_XX.sum(x, y);
-        double gPiTau = -GAMMA_XY.sum(x, y);
-        double gTauTau = GAMMA_YY.sum(x, y);
+        double gPi = -Region1Sums.gammaX(x, y);
+        double gPiPi = Region1Sums.gammaXX(x, y);
+        double gPiTau = -Region1Sums.gammaXY(x, y);
+        double gTauTau = Region1Sums.gammaYY(x, y);
         double a = gPi - tau * gPiTau;
         return Math.sqrt(R * temperatureK * gPi * gPi / (a * a / (tau * tau * gTauTau) - gPiPi));
     }
@@ -293,7 +293,7 @@ public final class Region1 {
      * @return T, K
      */
     public static double backwardTemperaturePH(double pressurePa, double enthalpy) {
-        return THETA_PH.sum(pressurePa / PH_P_STAR_PA, enthalpy / PH_H_STAR + 1.0);
+        return Region1Sums.thetaPH(pressurePa / PH_P_STAR_PA, enthalpy / PH_H_STAR + 1.0);
     }
 
     /**
@@ -304,7 +304,7 @@ public final class Region1 {
      * @return T, K
      */
     public static double backwardTemperaturePS(double pressurePa, double entropy) {
-        return THETA_PS.sum(pressurePa / PS_P_STAR_PA, entropy / PS_S_STAR + 2.0);
+        return Region1Sums.thetaPS(pressurePa / PS_P_STAR_PA, entropy / PS_S_STAR + 2.0);
     }
 
     /**
@@ -338,8 +338,8 @@ public final class Region1 {
         for (int iteration = 0; iteration < maxIterations; iteration++) {
             double tau = T_STAR_K / t;
             double y = tau - TAU_SHIFT;
-            double h = R * T_STAR_K * GAMMA_Y.sum(x, y);
-            double cp = -R * tau * tau * GAMMA_YY.sum(x, y);
+            double h = R * T_STAR_K * Region1Sums.gammaY(x, y);
+            double cp = -R * tau * tau * Region1Sums.gammaYY(x, y);
             double step = (enthalpy - h) / cp;
             t += step;
             if (Math.abs(step) <= NEWTON_TOLERANCE * t) {
@@ -369,8 +369,8 @@ public final class Region1 {
         for (int iteration = 0; iteration < maxIterations; iteration++) {
             double tau = T_STAR_K / t;
             double y = tau - TAU_SHIFT;
-            double s = R * (tau * GAMMA_Y.sum(x, y) - GAMMA.sum(x, y));
-            double cp = -R * tau * tau * GAMMA_YY.sum(x, y);
+            double s = R * (tau * Region1Sums.gammaY(x, y) - Region1Sums.gamma(x, y));
+            double cp = -R * tau * tau * Region1Sums.gammaYY(x, y);
             // ds/dT at constant p is cp/T.
             double step = (entropy - s) * t / cp;
             t += step;
@@ -408,12 +408,12 @@ public final class Region1 {
             double x = PI_SHIFT - p / P_STAR_PA;
             double tau = T_STAR_K / t;
             double y = tau - TAU_SHIFT;
-            double gTau = GAMMA_Y.sum(x, y);
-            double gPi = -GAMMA_X.sum(x, y);
-            double gPiTau = -GAMMA_XY.sum(x, y);
+            double gTau = Region1Sums.gammaY(x, y);
+            double gPi = -Region1Sums.gammaX(x, y);
+            double gPiTau = -Region1Sums.gammaXY(x, y);
             double h = R * T_STAR_K * gTau;
-            double s = R * (tau * gTau - GAMMA.sum(x, y));
-            double cp = -R * tau * tau * GAMMA_YY.sum(x, y);
+            double s = R * (tau * gTau - Region1Sums.gamma(x, y));
+            double cp = -R * tau * tau * Region1Sums.gammaYY(x, y);
             double v = R * t * gPi / P_STAR_PA;
             double dvdT = R * (gPi - tau * gPiTau) / P_STAR_PA;
             double dhdp = v - t * dvdT;

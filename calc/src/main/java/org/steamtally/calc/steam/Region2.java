@@ -466,15 +466,60 @@ public final class Region2 {
         {16, 10, -0.111754907323424e16},
     };
 
-    private static final VapourGibbs GIBBS =
-            new VapourGibbs("Region 2", P_STAR_PA, T_STAR_K, TABLE_10, TABLE_11, TAU_SHIFT);
+    static final VapourGibbs GIBBS =
+            new VapourGibbs("Region 2", P_STAR_PA, T_STAR_K, TABLE_10, TABLE_11, TAU_SHIFT) {
+                @Override
+                double idealSum(double tau) {
+                    return Region2Sums.ideal(tau);
+                }
 
-    private static final PowerSeries THETA_PH_2A = PowerSeries.ofRows(TABLE_20);
-    private static final PowerSeries THETA_PH_2B = PowerSeries.ofRows(TABLE_21);
-    private static final PowerSeries THETA_PH_2C = PowerSeries.ofRows(TABLE_22);
-    private static final PowerSeries THETA_PS_2A = PowerSeries.ofRows(TABLE_25, 4);
-    private static final PowerSeries THETA_PS_2B = PowerSeries.ofRows(TABLE_26);
-    private static final PowerSeries THETA_PS_2C = PowerSeries.ofRows(TABLE_27);
+                @Override
+                double idealTauSum(double tau) {
+                    return Region2Sums.idealTau(tau);
+                }
+
+                @Override
+                double idealTauTauSum(double tau) {
+                    return Region2Sums.idealTauTau(tau);
+                }
+
+                @Override
+                double residualSum(double pi, double y) {
+                    return Region2Sums.residual(pi, y);
+                }
+
+                @Override
+                double residualPiSum(double pi, double y) {
+                    return Region2Sums.residualPi(pi, y);
+                }
+
+                @Override
+                double residualTauSum(double pi, double y) {
+                    return Region2Sums.residualTau(pi, y);
+                }
+
+                @Override
+                double residualPiPiSum(double pi, double y) {
+                    return Region2Sums.residualPiPi(pi, y);
+                }
+
+                @Override
+                double residualPiTauSum(double pi, double y) {
+                    return Region2Sums.residualPiTau(pi, y);
+                }
+
+                @Override
+                double residualTauTauSum(double pi, double y) {
+                    return Region2Sums.residualTauTau(pi, y);
+                }
+            };
+
+    static final PowerSeries THETA_PH_2A = PowerSeries.ofRows(TABLE_20);
+    static final PowerSeries THETA_PH_2B = PowerSeries.ofRows(TABLE_21);
+    static final PowerSeries THETA_PH_2C = PowerSeries.ofRows(TABLE_22);
+    static final PowerSeries THETA_PS_2A = PowerSeries.ofRows(TABLE_25, 4);
+    static final PowerSeries THETA_PS_2B = PowerSeries.ofRows(TABLE_26);
+    static final PowerSeries THETA_PS_2C = PowerSeries.ofRows(TABLE_27);
     private static final PowerSeries PI_HS_2A = PowerSeries.ofRows(SUPP_PHS12_TABLE_6);
     private static final PowerSeries PI_HS_2B = PowerSeries.ofRows(SUPP_PHS12_TABLE_7);
     private static final PowerSeries PI_HS_2C = PowerSeries.ofRows(SUPP_PHS12_TABLE_8);
@@ -615,12 +660,12 @@ public final class Region2 {
         double pi = pressurePa / BACKWARD_P_STAR_PA;
         double eta = enthalpy / PH_H_STAR;
         if (pressurePa <= SUBREGION_2A_MAX_PRESSURE_PA) {
-            return THETA_PH_2A.sum(pi, eta - 2.1);
+            return Region2Sums.thetaPH2a(pi, eta - 2.1);
         }
         if (pressurePa <= boundaryPressure2bc(enthalpy)) {
-            return THETA_PH_2B.sum(pi - 2.0, eta - 2.6);
+            return Region2Sums.thetaPH2b(pi - 2.0, eta - 2.6);
         }
-        return THETA_PH_2C.sum(pi + 25.0, eta - 1.8);
+        return Region2Sums.thetaPH2c(pi + 25.0, eta - 1.8);
     }
 
     /**
@@ -634,12 +679,12 @@ public final class Region2 {
     public static double backwardTemperaturePS(double pressurePa, double entropy) {
         double pi = pressurePa / BACKWARD_P_STAR_PA;
         if (pressurePa <= SUBREGION_2A_MAX_PRESSURE_PA) {
-            return THETA_PS_2A.sum(Math.sqrt(Math.sqrt(pi)), entropy / PS_S_STAR_2A - 2.0);
+            return Region2Sums.thetaPS2a(Math.sqrt(Math.sqrt(pi)), entropy / PS_S_STAR_2A - 2.0);
         }
         if (entropy >= SUBREGION_2BC_ENTROPY) {
-            return THETA_PS_2B.sum(pi, 10.0 - entropy / PS_S_STAR_2B);
+            return Region2Sums.thetaPS2b(pi, 10.0 - entropy / PS_S_STAR_2B);
         }
-        return THETA_PS_2C.sum(pi, 2.0 - entropy / PS_S_STAR_2C);
+        return Region2Sums.thetaPS2c(pi, 2.0 - entropy / PS_S_STAR_2C);
     }
 
     /**

@@ -37,8 +37,53 @@ public final class Region5 {
         {3, 7, 0.37919454822955e-7},
     };
 
-    private static final VapourGibbs GIBBS =
-            new VapourGibbs("Region 5", P_STAR_PA, T_STAR_K, TABLE_37, TABLE_38, 0.0);
+    static final VapourGibbs GIBBS =
+            new VapourGibbs("Region 5", P_STAR_PA, T_STAR_K, TABLE_37, TABLE_38, 0.0) {
+                @Override
+                double idealSum(double tau) {
+                    return Region5Sums.ideal(tau);
+                }
+
+                @Override
+                double idealTauSum(double tau) {
+                    return Region5Sums.idealTau(tau);
+                }
+
+                @Override
+                double idealTauTauSum(double tau) {
+                    return Region5Sums.idealTauTau(tau);
+                }
+
+                @Override
+                double residualSum(double pi, double y) {
+                    return Region5Sums.residual(pi, y);
+                }
+
+                @Override
+                double residualPiSum(double pi, double y) {
+                    return Region5Sums.residualPi(pi, y);
+                }
+
+                @Override
+                double residualTauSum(double pi, double y) {
+                    return Region5Sums.residualTau(pi, y);
+                }
+
+                @Override
+                double residualPiPiSum(double pi, double y) {
+                    return Region5Sums.residualPiPi(pi, y);
+                }
+
+                @Override
+                double residualPiTauSum(double pi, double y) {
+                    return Region5Sums.residualPiTau(pi, y);
+                }
+
+                @Override
+                double residualTauTauSum(double pi, double y) {
+                    return Region5Sums.residualTauTau(pi, y);
+                }
+            };
 
     /**
      * Start of the Newton iterations, the middle of the region's temperature range. h and s are

@@ -37,6 +37,30 @@ public final class Steam {
     /** Triple-point pressure, the lowest pressure of the saturation line, Pa (R7-97(2012), Table 34 range). */
     public static final double TRIPLE_POINT_PRESSURE_PA = 611.213;
 
+    /** p_s(623.15 K), Pa: below it the region-4 line separates regions 1 and 2 (eq. 30). */
+    static final double REGION_13_SATURATION_PRESSURE_PA = Saturation.pressure(REGION_13_TEMPERATURE_K);
+
+    // Bounds that let the region selection from (p, h) and (p, s) skip a forward evaluation when the
+    // input is clearly on one side of a boundary. Each lies outside the boundary's range over the
+    // pressures where it is used, by a margin far above the boundary's variation between the points
+    // of the scan that FacadeShortcutBoundsTest checks it with.
+    /** Above every h(p, 273.15 K), p ≤ 100 MPa (the largest, at 100 MPa, is about 95.4 kJ/kg), J/kg. */
+    static final double ENTHALPY_ABOVE_MIN_TEMPERATURE = 1.0e5;
+    /** Below every h(p, 623.15 K) of region 1, p_s(623.15 K) ≤ p ≤ 100 MPa (least about 1553.9 kJ/kg), J/kg. */
+    static final double ENTHALPY_BELOW_REGION_13 = 1.55e6;
+    /** Above every saturated-vapour h'' from 611.213 Pa to p_s(623.15 K) (largest about 2803.3 kJ/kg), J/kg. */
+    static final double ENTHALPY_ABOVE_SATURATED_VAPOUR = 2.81e6;
+    /** Below every h(p, 1073.15 K) of region 2, p ≤ 100 MPa (least about 3715.2 kJ/kg), J/kg. */
+    static final double ENTHALPY_BELOW_REGION_25 = 3.7e6;
+    /** Above every s(p, 273.15 K), p ≤ 100 MPa (largest about 0.48 J/(kg·K)), J/(kg·K). */
+    static final double ENTROPY_ABOVE_MIN_TEMPERATURE = 1.0;
+    /** Below every s(p, 623.15 K) of region 1, p_s(623.15 K) ≤ p ≤ 100 MPa (least about 3397.8 J/(kg·K)). */
+    static final double ENTROPY_BELOW_REGION_13 = 3.39e3;
+    /** Above every saturated-vapour s'' from 611.213 Pa to p_s(623.15 K) (largest about 9155.8 J/(kg·K)). */
+    static final double ENTROPY_ABOVE_SATURATED_VAPOUR = 9.2e3;
+    /** Below every s(p, 1073.15 K) of region 2, p ≤ 100 MPa (least about 6040.5 J/(kg·K)). */
+    static final double ENTROPY_BELOW_REGION_25 = 6.0e3;
+
     private Steam() {
     }
 
@@ -170,12 +194,14 @@ public final class Steam {
      * R7-97(2012) prescribes.
      */
     static SteamState wetState(double p, double T, double x) {
-        double hL = SaturationLine.liquidEnthalpy(p, T);
-        double hV = SaturationLine.vapourEnthalpy(p, T);
+        return wetState(p, T, x, SaturationLine.liquidEnthalpy(p, T), SaturationLine.vapourEnthalpy(p, T),
+                SaturationLine.liquidEntropy(p, T), SaturationLine.vapourEntropy(p, T));
+    }
+
+    /** As {@link #wetState(double, double, double)}, with h', h'', s' and s'' at (p, T) already known. */
+    private static SteamState wetState(double p, double T, double x, double hL, double hV, double sL, double sV) {
         double vL = SaturationLine.liquidVolume(p, T);
         double vV = SaturationLine.vapourVolume(p, T);
-        double sL = SaturationLine.liquidEntropy(p, T);
-        double sV = SaturationLine.vapourEntropy(p, T);
         double h = hL + x * (hV - hL);
         double v = vL + x * (vV - vL);
         return SteamState.twoPhase(p, T, h, sL + x * (sV - sL), v, h - p * v, x);
@@ -190,11 +216,18 @@ public final class Steam {
     public static Region regionPH(double p, double h) {
         checkPressure("p,h", p);
         checkFinite("p,h", "h", h, "J/kg");
-        if (p <= Saturation.pressure(REGION_13_TEMPERATURE_K)) {
+        return regionOfValidPH(p, h);
+    }
+
+    private static Region regionOfValidPH(double p, double h) {
+        if (p <= REGION_13_SATURATION_PRESSURE_PA) {
             if (p >= TRIPLE_POINT_PRESSURE_PA) {
+                if (h > ENTHALPY_ABOVE_SATURATED_VAPOUR) {
+                    return vapourRegionPH(p, h);
+                }
                 double Ts = Saturation.temperature(p);
                 if (h < Region1.enthalpy(p, Ts)) {
-                    checkLowerEnthalpy(p, h, Region1.enthalpy(p, MIN_TEMPERATURE_K));
+                    checkLowerEnthalpyRegion1(p, h);
                     return Region.REGION_1;
                 }
                 if (h <= Region2.enthalpy(p, Ts)) {
@@ -205,8 +238,8 @@ public final class Steam {
             }
             return vapourRegionPH(p, h);
         }
-        if (h <= Region1.enthalpy(p, REGION_13_TEMPERATURE_K)) {
-            checkLowerEnthalpy(p, h, Region1.enthalpy(p, MIN_TEMPERATURE_K));
+        if (h <= ENTHALPY_BELOW_REGION_13 || h <= Region1.enthalpy(p, REGION_13_TEMPERATURE_K)) {
+            checkLowerEnthalpyRegion1(p, h);
             return Region.REGION_1;
         }
         if (h >= Region2.enthalpy(p, B23.temperature(p))) {
@@ -223,7 +256,7 @@ public final class Steam {
 
     /** Region 2 or 5 above the saturated-vapour or B23 line, for a valid pressure. */
     private static Region vapourRegionPH(double p, double h) {
-        if (h <= Region2.enthalpy(p, MAX_TEMPERATURE_REGION_2_K)) {
+        if (h <= ENTHALPY_BELOW_REGION_25 || h <= Region2.enthalpy(p, MAX_TEMPERATURE_REGION_2_K)) {
             return Region.REGION_2;
         }
         if (p <= MAX_PRESSURE_REGION_5_PA && h <= Region5.enthalpy(p, MAX_TEMPERATURE_K)) {
@@ -247,7 +280,23 @@ public final class Steam {
 
     /** The full state at (p, h): single phase, or two-phase with its quality. */
     public static SteamState statePH(double p, double h) {
-        switch (regionPH(p, h)) {
+        checkPressure("p,h", p);
+        checkFinite("p,h", "h", h, "J/kg");
+        if (p >= TRIPLE_POINT_PRESSURE_PA && p <= REGION_13_SATURATION_PRESSURE_PA
+                && h <= ENTHALPY_ABOVE_SATURATED_VAPOUR) {
+            // The selection of regionPH below 623.15 K, keeping h' and h'' for the wet state.
+            double Ts = Saturation.temperature(p);
+            double hL = Region1.enthalpy(p, Ts);
+            if (h < hL) {
+                checkLowerEnthalpyRegion1(p, h);
+                return singlePhase(Region.REGION_1, p, Region1.temperaturePH(p, h));
+            }
+            double hV = Region2.enthalpy(p, Ts);
+            if (h <= hV) {
+                return wetState(p, Ts, quality(h, hL, hV), hL, hV, Region1.entropy(p, Ts), Region2.entropy(p, Ts));
+            }
+        }
+        switch (regionOfValidPH(p, h)) {
             case REGION_1: return singlePhase(Region.REGION_1, p, Region1.temperaturePH(p, h));
             case REGION_2: return singlePhase(Region.REGION_2, p, Region2.temperaturePH(p, h));
             case REGION_3: return region3State(Region3.densityPH(p, h), Region3.temperaturePH(p, h));
@@ -255,7 +304,8 @@ public final class Steam {
                 double Ts = Saturation.temperature(p);
                 double hL = SaturationLine.liquidEnthalpy(p, Ts);
                 double hV = SaturationLine.vapourEnthalpy(p, Ts);
-                return wetState(p, Ts, quality(h, hL, hV));
+                return wetState(p, Ts, quality(h, hL, hV), hL, hV,
+                        SaturationLine.liquidEntropy(p, Ts), SaturationLine.vapourEntropy(p, Ts));
             }
             default: return singlePhase(Region.REGION_5, p, Region5.temperaturePH(p, h));
         }
@@ -270,11 +320,18 @@ public final class Steam {
     public static Region regionPS(double p, double s) {
         checkPressure("p,s", p);
         checkFinite("p,s", "s", s, "J/(kg·K)");
-        if (p <= Saturation.pressure(REGION_13_TEMPERATURE_K)) {
+        return regionOfValidPS(p, s);
+    }
+
+    private static Region regionOfValidPS(double p, double s) {
+        if (p <= REGION_13_SATURATION_PRESSURE_PA) {
             if (p >= TRIPLE_POINT_PRESSURE_PA) {
+                if (s > ENTROPY_ABOVE_SATURATED_VAPOUR) {
+                    return vapourRegionPS(p, s);
+                }
                 double Ts = Saturation.temperature(p);
                 if (s < Region1.entropy(p, Ts)) {
-                    checkLowerEntropy(p, s, Region1.entropy(p, MIN_TEMPERATURE_K));
+                    checkLowerEntropyRegion1(p, s);
                     return Region.REGION_1;
                 }
                 if (s <= Region2.entropy(p, Ts)) {
@@ -285,8 +342,8 @@ public final class Steam {
             }
             return vapourRegionPS(p, s);
         }
-        if (s <= Region1.entropy(p, REGION_13_TEMPERATURE_K)) {
-            checkLowerEntropy(p, s, Region1.entropy(p, MIN_TEMPERATURE_K));
+        if (s <= ENTROPY_BELOW_REGION_13 || s <= Region1.entropy(p, REGION_13_TEMPERATURE_K)) {
+            checkLowerEntropyRegion1(p, s);
             return Region.REGION_1;
         }
         if (s >= Region2.entropy(p, B23.temperature(p))) {
@@ -302,7 +359,7 @@ public final class Steam {
     }
 
     private static Region vapourRegionPS(double p, double s) {
-        if (s <= Region2.entropy(p, MAX_TEMPERATURE_REGION_2_K)) {
+        if (s <= ENTROPY_BELOW_REGION_25 || s <= Region2.entropy(p, MAX_TEMPERATURE_REGION_2_K)) {
             return Region.REGION_2;
         }
         if (p <= MAX_PRESSURE_REGION_5_PA && s <= Region5.entropy(p, MAX_TEMPERATURE_K)) {
@@ -326,7 +383,23 @@ public final class Steam {
 
     /** The full state at (p, s): single phase, or two-phase with its quality. */
     public static SteamState statePS(double p, double s) {
-        switch (regionPS(p, s)) {
+        checkPressure("p,s", p);
+        checkFinite("p,s", "s", s, "J/(kg·K)");
+        if (p >= TRIPLE_POINT_PRESSURE_PA && p <= REGION_13_SATURATION_PRESSURE_PA
+                && s <= ENTROPY_ABOVE_SATURATED_VAPOUR) {
+            // The selection of regionPS below 623.15 K, keeping s' and s'' for the wet state.
+            double Ts = Saturation.temperature(p);
+            double sL = Region1.entropy(p, Ts);
+            if (s < sL) {
+                checkLowerEntropyRegion1(p, s);
+                return singlePhase(Region.REGION_1, p, Region1.temperaturePS(p, s));
+            }
+            double sV = Region2.entropy(p, Ts);
+            if (s <= sV) {
+                return wetState(p, Ts, quality(s, sL, sV), Region1.enthalpy(p, Ts), Region2.enthalpy(p, Ts), sL, sV);
+            }
+        }
+        switch (regionOfValidPS(p, s)) {
             case REGION_1: return singlePhase(Region.REGION_1, p, Region1.temperaturePS(p, s));
             case REGION_2: return singlePhase(Region.REGION_2, p, Region2.temperaturePS(p, s));
             case REGION_3: return region3State(Region3.densityPS(p, s), Region3.temperaturePS(p, s));
@@ -334,7 +407,8 @@ public final class Steam {
                 double Ts = Saturation.temperature(p);
                 double sL = SaturationLine.liquidEntropy(p, Ts);
                 double sV = SaturationLine.vapourEntropy(p, Ts);
-                return wetState(p, Ts, quality(s, sL, sV));
+                return wetState(p, Ts, quality(s, sL, sV), SaturationLine.liquidEnthalpy(p, Ts),
+                        SaturationLine.vapourEnthalpy(p, Ts), sL, sV);
             }
             default: return singlePhase(Region.REGION_5, p, Region5.temperaturePS(p, s));
         }
@@ -412,6 +486,20 @@ public final class Steam {
         checkFinite(pair, "x", x, "1");
         if (x < 0.0 || x > 1.0) {
             throw new SteamRangeException(pair, "x", x, "1", "0 to 1");
+        }
+    }
+
+    /** The lower bound h(p, 273.15 K) of region 1, evaluated only where h could be below it. */
+    private static void checkLowerEnthalpyRegion1(double p, double h) {
+        if (h < ENTHALPY_ABOVE_MIN_TEMPERATURE) {
+            checkLowerEnthalpy(p, h, Region1.enthalpy(p, MIN_TEMPERATURE_K));
+        }
+    }
+
+    /** The lower bound s(p, 273.15 K) of region 1, evaluated only where s could be below it. */
+    private static void checkLowerEntropyRegion1(double p, double s) {
+        if (s < ENTROPY_ABOVE_MIN_TEMPERATURE) {
+            checkLowerEntropy(p, s, Region1.entropy(p, MIN_TEMPERATURE_K));
         }
     }
 

@@ -7,8 +7,9 @@ package org.steamtally.calc.steam;
  * π = p/p* and τ = T* / T. The property relations are those of the release's Tables 12 and 39.
  *
  * <p>Also the Newton refinements shared by those regions. Instances are immutable and thread-safe.
+ * A region may subclass it to replace the sums of its series by generated straight-line code.
  */
-final class VapourGibbs {
+class VapourGibbs {
 
     private static final double R = If97Constants.R;
 
@@ -16,15 +17,15 @@ final class VapourGibbs {
     private final double pStarPa;
     private final double tStarK;
     private final double tauShift;
-    private final PowerSeries ideal;
-    private final PowerSeries idealTau;
-    private final PowerSeries idealTauTau;
-    private final PowerSeries residual;
-    private final PowerSeries residualPi;
-    private final PowerSeries residualTau;
-    private final PowerSeries residualPiPi;
-    private final PowerSeries residualPiTau;
-    private final PowerSeries residualTauTau;
+    final PowerSeries ideal;
+    final PowerSeries idealTau;
+    final PowerSeries idealTauTau;
+    final PowerSeries residual;
+    final PowerSeries residualPi;
+    final PowerSeries residualTau;
+    final PowerSeries residualPiPi;
+    final PowerSeries residualPiTau;
+    final PowerSeries residualTauTau;
 
     /**
      * @param name          the region's name, for error messages
@@ -55,25 +56,64 @@ final class VapourGibbs {
         residualTauTau = residualTau.derivativeY();
     }
 
+    // The sums of the series above. A region overrides them with its generated straight-line
+    // evaluations (same result, bit for bit); the table-driven sums serve the rest.
+
+    double idealSum(double tau) {
+        return ideal.sum(0.0, tau);
+    }
+
+    double idealTauSum(double tau) {
+        return idealTau.sum(0.0, tau);
+    }
+
+    double idealTauTauSum(double tau) {
+        return idealTauTau.sum(0.0, tau);
+    }
+
+    double residualSum(double pi, double y) {
+        return residual.sum(pi, y);
+    }
+
+    double residualPiSum(double pi, double y) {
+        return residualPi.sum(pi, y);
+    }
+
+    double residualTauSum(double pi, double y) {
+        return residualTau.sum(pi, y);
+    }
+
+    double residualPiPiSum(double pi, double y) {
+        return residualPiPi.sum(pi, y);
+    }
+
+    double residualPiTauSum(double pi, double y) {
+        return residualPiTau.sum(pi, y);
+    }
+
+    double residualTauTauSum(double pi, double y) {
+        return residualTauTau.sum(pi, y);
+    }
+
     double specificVolume(double p, double t) {
         double pi = p / pStarPa;
         double y = tStarK / t - tauShift;
-        return R * t / p * (1.0 + pi * residualPi.sum(pi, y));
+        return R * t / p * (1.0 + pi * residualPiSum(pi, y));
     }
 
     double enthalpy(double p, double t) {
         double pi = p / pStarPa;
         double tau = tStarK / t;
         // RT·τ = R·T*, so h needs no division by T.
-        return R * tStarK * (idealTau.sum(0.0, tau) + residualTau.sum(pi, tau - tauShift));
+        return R * tStarK * (idealTauSum(tau) + residualTauSum(pi, tau - tauShift));
     }
 
     double entropy(double p, double t) {
         double pi = p / pStarPa;
         double tau = tStarK / t;
         double y = tau - tauShift;
-        double gTau = idealTau.sum(0.0, tau) + residualTau.sum(pi, y);
-        double g = Math.log(pi) + ideal.sum(0.0, tau) + residual.sum(pi, y);
+        double gTau = idealTauSum(tau) + residualTauSum(pi, y);
+        double g = Math.log(pi) + idealSum(tau) + residualSum(pi, y);
         return R * (tau * gTau - g);
     }
 
@@ -81,34 +121,34 @@ final class VapourGibbs {
         double pi = p / pStarPa;
         double tau = tStarK / t;
         double y = tau - tauShift;
-        double gTau = idealTau.sum(0.0, tau) + residualTau.sum(pi, y);
-        return R * t * (tau * gTau - 1.0 - pi * residualPi.sum(pi, y));
+        double gTau = idealTauSum(tau) + residualTauSum(pi, y);
+        return R * t * (tau * gTau - 1.0 - pi * residualPiSum(pi, y));
     }
 
     double isobaricHeatCapacity(double p, double t) {
         double pi = p / pStarPa;
         double tau = tStarK / t;
-        return -R * tau * tau * (idealTauTau.sum(0.0, tau) + residualTauTau.sum(pi, tau - tauShift));
+        return -R * tau * tau * (idealTauTauSum(tau) + residualTauTauSum(pi, tau - tauShift));
     }
 
     double isochoricHeatCapacity(double p, double t) {
         double pi = p / pStarPa;
         double tau = tStarK / t;
         double y = tau - tauShift;
-        double gTauTau = idealTauTau.sum(0.0, tau) + residualTauTau.sum(pi, y);
-        double a = 1.0 + pi * residualPi.sum(pi, y) - tau * pi * residualPiTau.sum(pi, y);
-        return R * (-tau * tau * gTauTau - a * a / (1.0 - pi * pi * residualPiPi.sum(pi, y)));
+        double gTauTau = idealTauTauSum(tau) + residualTauTauSum(pi, y);
+        double a = 1.0 + pi * residualPiSum(pi, y) - tau * pi * residualPiTauSum(pi, y);
+        return R * (-tau * tau * gTauTau - a * a / (1.0 - pi * pi * residualPiPiSum(pi, y)));
     }
 
     double speedOfSound(double p, double t) {
         double pi = p / pStarPa;
         double tau = tStarK / t;
         double y = tau - tauShift;
-        double gTauTau = idealTauTau.sum(0.0, tau) + residualTauTau.sum(pi, y);
-        double piGrPi = pi * residualPi.sum(pi, y);
-        double a = 1.0 + piGrPi - tau * pi * residualPiTau.sum(pi, y);
+        double gTauTau = idealTauTauSum(tau) + residualTauTauSum(pi, y);
+        double piGrPi = pi * residualPiSum(pi, y);
+        double a = 1.0 + piGrPi - tau * pi * residualPiTauSum(pi, y);
         double numerator = 1.0 + piGrPi * (2.0 + piGrPi);
-        double denominator = 1.0 - pi * pi * residualPiPi.sum(pi, y) + a * a / (tau * tau * gTauTau);
+        double denominator = 1.0 - pi * pi * residualPiPiSum(pi, y) + a * a / (tau * tau * gTauTau);
         return Math.sqrt(R * t * numerator / denominator);
     }
 
@@ -123,8 +163,8 @@ final class VapourGibbs {
         for (int iteration = 0; iteration < maxIterations; iteration++) {
             double tau = tStarK / t;
             double y = tau - tauShift;
-            double hCalc = R * tStarK * (idealTau.sum(0.0, tau) + residualTau.sum(pi, y));
-            double cp = -R * tau * tau * (idealTauTau.sum(0.0, tau) + residualTauTau.sum(pi, y));
+            double hCalc = R * tStarK * (idealTauSum(tau) + residualTauSum(pi, y));
+            double cp = -R * tau * tau * (idealTauTauSum(tau) + residualTauTauSum(pi, y));
             double step = (h - hCalc) / cp;
             t += step;
             if (Math.abs(step) <= tolerance * t) {
@@ -147,10 +187,10 @@ final class VapourGibbs {
         for (int iteration = 0; iteration < maxIterations; iteration++) {
             double tau = tStarK / t;
             double y = tau - tauShift;
-            double gTau = idealTau.sum(0.0, tau) + residualTau.sum(pi, y);
-            double g = lnPi + ideal.sum(0.0, tau) + residual.sum(pi, y);
+            double gTau = idealTauSum(tau) + residualTauSum(pi, y);
+            double g = lnPi + idealSum(tau) + residualSum(pi, y);
             double sCalc = R * (tau * gTau - g);
-            double cp = -R * tau * tau * (idealTauTau.sum(0.0, tau) + residualTauTau.sum(pi, y));
+            double cp = -R * tau * tau * (idealTauTauSum(tau) + residualTauTauSum(pi, y));
             // ds/dT at constant p is cp/T, so ds/d(ln T) is cp.
             double relative = (s - sCalc) / cp;
             double next = logStep ? t * Math.exp(relative) : t * (1.0 + relative);
@@ -178,13 +218,13 @@ final class VapourGibbs {
             double pi = p / pStarPa;
             double tau = tStarK / t;
             double y = tau - tauShift;
-            double gTau = idealTau.sum(0.0, tau) + residualTau.sum(pi, y);
-            double g = Math.log(pi) + ideal.sum(0.0, tau) + residual.sum(pi, y);
-            double piGrPi = pi * residualPi.sum(pi, y);
-            double piTauGrPiTau = pi * tau * residualPiTau.sum(pi, y);
+            double gTau = idealTauSum(tau) + residualTauSum(pi, y);
+            double g = Math.log(pi) + idealSum(tau) + residualSum(pi, y);
+            double piGrPi = pi * residualPiSum(pi, y);
+            double piTauGrPiTau = pi * tau * residualPiTauSum(pi, y);
             double hCalc = R * tStarK * gTau;
             double sCalc = R * (tau * gTau - g);
-            double cp = -R * tau * tau * (idealTauTau.sum(0.0, tau) + residualTauTau.sum(pi, y));
+            double cp = -R * tau * tau * (idealTauTauSum(tau) + residualTauTauSum(pi, y));
             // p·v = RT(1 + π γrπ) and p·(∂v/∂T)p = R(1 + π γrπ − τ π γrπτ): derivatives in ln p.
             double pv = R * t * (1.0 + piGrPi);
             double pDvdT = R * (1.0 + piGrPi - piTauGrPiTau);
