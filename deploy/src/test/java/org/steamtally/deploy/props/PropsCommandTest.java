@@ -356,8 +356,24 @@ class PropsCommandTest {
     }
 
     @Test
-    void shippedExampleComputesEveryRowButItsOneBadRow() {
+    void shippedExampleComputesEveryRow() {
         CommandRun run = CommandRun.of(new String[] {"props", "--given", "p,T", "--in", "examples/props-pT.csv"});
+        OutputTable table = OutputTable.parse(run.out());
+        assertAll(
+                () -> assertEquals(0, run.status(), run.err()),
+                () -> assertEquals(7, table.rows().size()),
+                () -> {
+                    for (int row = 0; row < table.rows().size(); row++) {
+                        assertEquals("", table.get(row, "error"), "row " + row);
+                    }
+                },
+                () -> assertTrue(run.err().contains("read 7 rows: 7 good, 0 failed"), run.err()));
+    }
+
+    @Test
+    void shippedExampleWithAnErrorComputesEveryRowButItsOneBadRow() {
+        CommandRun run = CommandRun.of(new String[] {"props", "--given", "p,T", "--in",
+                "examples/props-pT-with-error.csv"});
         OutputTable table = OutputTable.parse(run.out());
         int last = table.rows().size() - 1;
         assertAll(
