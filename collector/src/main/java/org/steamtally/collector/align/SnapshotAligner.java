@@ -23,8 +23,10 @@ import org.steamtally.calc.plant.UnitDescription;
  * <p>Time is passed in: the aligner has no clock of its own, so the same calls give the same
  * snapshots. {@link #advanceTo} moves the clock and emits every snapshot whose time is more than
  * {@code allowedLateness} in the past; until then a snapshot is open and a late reading for it is
- * still taken in. The first snapshot is the first grid time at or after the first clock time minus
- * the allowed lateness; readings from before it still serve as each sensor's latest value.
+ * still taken in. The grid starts with the first reading taken in: the first snapshot is the first
+ * grid time at or after that reading's timestamp, or after the clock less the allowed lateness if
+ * the reading is older; readings from before the first snapshot still serve as each sensor's latest
+ * value.
  *
  * <p>Memory is bounded: per sensor the latest reading before the open snapshots and, for each grid
  * interval of the open window, the newest reading in it (at most (2·lateness + period)/period + 2
@@ -50,7 +52,9 @@ public final class SnapshotAligner {
 
     private boolean clockSet;
     private long clockMillis;
-    /** The next snapshot to emit; meaningful once the clock is set. */
+    /** Whether the first reading has fixed the grid's start. */
+    private boolean started;
+    /** The next snapshot to emit; meaningful once {@link #started}. */
     private long nextSnapshotMillis;
 
     /** An aligner with {@link #DEFAULT_PERIOD} and {@link #DEFAULT_ALLOWED_LATENESS}. */
@@ -91,9 +95,9 @@ public final class SnapshotAligner {
         return unit;
     }
 
-    /** The time of the next snapshot to be emitted, once the clock is set. */
+    /** The time of the next snapshot to be emitted, once the first reading has fixed the grid's start. */
     public OptionalLong nextSnapshotMillis() {
-        return clockSet ? OptionalLong.of(nextSnapshotMillis) : OptionalLong.empty();
+        return started ? OptionalLong.of(nextSnapshotMillis) : OptionalLong.empty();
     }
 
     /**
@@ -120,6 +124,10 @@ public final class SnapshotAligner {
         if (tsMillis > clockMillis + latenessMillis) {
             return Offer.AHEAD;
         }
+        if (!started) {
+            started = true;
+            nextSnapshotMillis = slotOf(Math.max(tsMillis, clockMillis - latenessMillis));
+        }
         SensorTrack track = tracks[sensorIndex];
         // Every snapshot such a reading could enter has been emitted; it can only be a later one's base.
         if (tsMillis <= nextSnapshotMillis - periodMillis) {
@@ -135,12 +143,9 @@ public final class SnapshotAligner {
      * time still enters the current snapshot.
      */
     public List<Snapshot> advanceTo(long nowMillis) {
-        if (!clockSet) {
+        if (!clockSet || nowMillis > clockMillis) {
             clockMillis = nowMillis;
             clockSet = true;
-            nextSnapshotMillis = slotOf(nowMillis - latenessMillis);
-        } else if (nowMillis > clockMillis) {
-            clockMillis = nowMillis;
         }
         return emitThrough(clockMillis - latenessMillis - 1);
     }
@@ -154,7 +159,7 @@ public final class SnapshotAligner {
     }
 
     private List<Snapshot> emitThrough(long lastMillis) {
-        if (nextSnapshotMillis > lastMillis) {
+        if (!started || nextSnapshotMillis > lastMillis) {
             return List.of();
         }
         List<Snapshot> out = new ArrayList<>((int) Math.min(1024, (lastMillis - nextSnapshotMillis) / periodMillis + 1));

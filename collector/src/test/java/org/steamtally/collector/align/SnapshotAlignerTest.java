@@ -58,12 +58,12 @@ class SnapshotAlignerTest {
         a.advanceTo(T0);
         a.offer(PRESSURE, T0 + 1_000, 16.0e6);
         a.offer(PRESSURE, T0 + 1_001, 16.5e6);
-        // The grid starts at T0 − 2 s, the first clock time less the lateness.
+        // The grid starts with the first reading, at T0 + 1 s.
         List<Snapshot> out = a.advanceTo(T0 + 4_001);
         assertAll(
-                () -> assertEquals(Instant.ofEpochMilli(T0 + 1_000), out.get(3).timestamp()),
-                () -> assertEquals(16.0e6, out.get(3).valuesSi()[PRESSURE], "a reading exactly at t belongs to t"),
-                () -> assertEquals(16.5e6, out.get(4).valuesSi()[PRESSURE]));
+                () -> assertEquals(Instant.ofEpochMilli(T0 + 1_000), out.get(0).timestamp()),
+                () -> assertEquals(16.0e6, out.get(0).valuesSi()[PRESSURE], "a reading exactly at t belongs to t"),
+                () -> assertEquals(16.5e6, out.get(1).valuesSi()[PRESSURE]));
     }
 
     @Test
@@ -93,6 +93,8 @@ class SnapshotAlignerTest {
     @Test
     void lateReadingWithinTheAllowedLatenessEntersItsSnapshot() {
         SnapshotAligner a = aligner(2_000);
+        a.advanceTo(T0);
+        a.offer(PRESSURE, T0, 14e6);
         a.advanceTo(T0 + 2_000);
         a.offer(PRESSURE, T0 + 1_900, 16e6);
         // T0 + 1 s is still open: the clock is only 1.5 s past it with 2 s allowed.
@@ -131,7 +133,8 @@ class SnapshotAlignerTest {
         a.advanceTo(T0 + 1_000);
         List<Snapshot> out = a.advanceTo(T0 + 2_001);
         assertAll(
-                () -> assertEquals(16e6, out.get(1).valuesSi()[PRESSURE], "the first of two conflicting readings is kept"),
+                () -> assertEquals(Instant.ofEpochMilli(T0 + 1_000), out.get(0).timestamp()),
+                () -> assertEquals(16e6, out.get(0).valuesSi()[PRESSURE], "the first of two conflicting readings is kept"),
                 () -> assertEquals(Offer.DUPLICATE, a.offer(PRESSURE, T0 + 200, 16e6), "also once its snapshot is out"));
     }
 
@@ -145,9 +148,10 @@ class SnapshotAlignerTest {
         }
         List<Snapshot> ordered = replay(readings, 3_000);
         List<long[]> shuffled = new ArrayList<>(readings);
-        // Displace each reading by less than the lateness: swap within blocks of ten (1.37 s).
+        // Displace each reading by less than the lateness: swap within blocks of ten (1.37 s). The
+        // first reading stays first, since it fixes the grid's start.
         for (int b = 0; b + 10 <= shuffled.size(); b += 10) {
-            Collections.shuffle(shuffled.subList(b, b + 10), random);
+            Collections.shuffle(shuffled.subList(Math.max(b, 1), b + 10), random);
         }
         List<Snapshot> disordered = replay(shuffled, 3_000);
         assertEquals(ordered.size(), disordered.size(), "seed " + seed);
@@ -159,9 +163,8 @@ class SnapshotAlignerTest {
     /** Offers each reading with the clock at the newest timestamp seen so far, as a recording is replayed. */
     private static List<Snapshot> replay(List<long[]> readings, long latenessMillis) {
         SnapshotAligner a = aligner(latenessMillis);
-        // The first clock time fixes the grid's start; fix it so that both orders share it.
-        List<Snapshot> out = new ArrayList<>(a.advanceTo(T0));
-        long clock = T0;
+        List<Snapshot> out = new ArrayList<>();
+        long clock = Long.MIN_VALUE;
         for (long[] r : readings) {
             clock = Math.max(clock, r[1]);
             out.addAll(a.advanceTo(clock));
@@ -197,6 +200,16 @@ class SnapshotAlignerTest {
     }
 
     @Test
+    void gridStartsWithTheFirstReadingButNotBeforeTheLatenessWindow() {
+        SnapshotAligner a = aligner(2_000);
+        a.advanceTo(T0 + 60_000);
+        assertEquals(List.of(), a.advanceTo(T0 + 61_000), "no snapshots before the first reading");
+        // A retained reading a minute old starts the grid at the window's edge, not a minute back.
+        assertEquals(Offer.ACCEPTED, a.offer(PRESSURE, T0, 16e6));
+        assertEquals(T0 + 59_000, a.nextSnapshotMillis().getAsLong());
+    }
+
+    @Test
     void offeringBeforeTheClockIsSetIsAnError() {
         SnapshotAligner a = aligner(0);
         assertThrows(IllegalStateException.class, () -> a.offer(PRESSURE, T0, 16e6));
@@ -205,6 +218,8 @@ class SnapshotAlignerTest {
     @Test
     void drainEmitsOpenSnapshotsUpToTheClock() {
         SnapshotAligner a = aligner(5_000);
+        a.advanceTo(T0);
+        a.offer(PRESSURE, T0, 16e6);
         a.advanceTo(T0 + 5_000);
         a.offer(PRESSURE, T0 + 5_000, 16e6);
         assertEquals(1, a.advanceTo(T0 + 5_001).size(), "only T0 is past the lateness");
