@@ -240,7 +240,7 @@ public final class ReplayCommand implements Callable<Integer> {
         try {
             Path outPath = Path.of(out);
             if (Files.exists(outPath) && ((!STANDARD_STREAM.equals(in) && Files.isSameFile(Path.of(in), outPath))
-                    || Files.isSameFile(config, outPath))) {
+                    || (Files.exists(config) && Files.isSameFile(config, outPath)))) {
                 throw new ReplayInputException("--out names an input file '" + out
                         + "'; it would be emptied before it is read");
             }

@@ -11,7 +11,8 @@ package org.steamtally.deploy.replay;
  *                              superseded by a newer reading or outside the sensor's plausible range
  * @param snapshots             result records written
  * @param snapshotsInvalid      of these, records with at least one invalid state
- * @param evaluationsFailed     snapshots whose evaluation failed, reported and not written
+ * @param evaluationsFailed     snapshots whose evaluation failed or whose result could not be
+ *                              written, reported and left out
  */
 public record ReplayTally(long linesRead, long linesGood, long linesBad, long firstBadLine, long readingsUnused,
                           long snapshots, long snapshotsInvalid, long evaluationsFailed) {

@@ -240,7 +240,16 @@ final class Replayer {
                         + (e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage()));
                 continue;
             }
-            out.write(result);
+            try {
+                out.write(result);
+            } catch (IllegalArgumentException e) {
+                // The record breaks the output format (a non-finite value, a CSV column the header
+                // lacks): that snapshot is lost, the run is not.
+                evaluationsFailed++;
+                problem(report, "unit " + snapshot.unitId() + " at " + snapshot.timestamp()
+                        + ": result cannot be written: " + e.getMessage());
+                continue;
+            }
             snapshots++;
             if (result.states().stream().anyMatch(s -> !s.valid())) {
                 snapshotsInvalid++;

@@ -172,6 +172,35 @@ class ReplayCommandTest {
     }
 
     @Test
+    void evaluationThatFailsIsReportedAndTheRunGoesOn() throws IOException {
+        Path in = dir.resolve("readings.jsonl");
+        Files.writeString(in, steadyReadings(3));
+        PlantDescription plant = ReplayFakes.plant("unit2");
+        ReplaySeams seams = new ReplaySeams(path -> plant, ReplayFakes::toSi, (site, unit) -> {
+            UnitEvaluator real = ReplayFakes.evaluator(site, unit);
+            return snapshot -> {
+                if (snapshot.timestamp().toEpochMilli() == T0 + 1_000) {
+                    throw new IllegalStateException("iteration did not converge");
+                }
+                return real.evaluate(snapshot);
+            };
+        });
+        CommandLine commandLine = new CommandLine(new ReplayCommand(seams));
+        StringWriter out = new StringWriter();
+        StringWriter err = new StringWriter();
+        commandLine.setOut(new PrintWriter(out, true));
+        commandLine.setErr(new PrintWriter(err, true));
+        int status = commandLine.execute("--config", "plant.yaml", "--in", in.toString());
+        assertAll(
+                () -> assertEquals(Launcher.EXIT_PARTIAL_FAILURE, status),
+                () -> assertTrue(err.toString().contains("unit unit2 at 2026-12-01T00:00:01Z: evaluation failed: "
+                        + "iteration did not converge"), err.toString()),
+                () -> assertTrue(err.toString().contains("2 snapshots: 2 with all states valid, 0 with invalid states, "
+                        + "1 failed to evaluate"), err.toString()),
+                () -> assertEquals(2, records(out.toString()).size()));
+    }
+
+    @Test
     void csvHasAHeaderAndOneRowPerSnapshot() throws IOException {
         CommandRun run = replay(ReplayFakes.plant("unit2"), steadyReadings(2), "--format", "csv");
         String[] lines = run.out().split("\n");
