@@ -8,6 +8,7 @@ import java.nio.charset.StandardCharsets;
 import java.util.Objects;
 import java.util.concurrent.Callable;
 import org.steamtally.deploy.props.PropsCommand;
+import org.steamtally.deploy.replay.ReplayCommand;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.HelpCommand;
@@ -36,6 +37,7 @@ import picocli.CommandLine.Spec;
         subcommands = {
                 HelpCommand.class,
                 PropsCommand.class,
+                ReplayCommand.class,
         })
 public final class Launcher implements Callable<Integer> {
 

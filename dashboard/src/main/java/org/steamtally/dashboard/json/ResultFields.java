@@ -1,0 +1,48 @@
+package org.steamtally.dashboard.json;
+
+import java.util.List;
+
+/**
+ * The field names of the result record, in the order they are written. Each name carries its SI unit
+ * ({@code _Pa}, {@code _K}, {@code _J_per_kg}, {@code _W}); names without a unit are dimensionless.
+ * docs/RESULTS.md describes every field.
+ */
+public final class ResultFields {
+
+    public static final String TS = "ts";
+    public static final String SITE = "site";
+    public static final String UNIT = "unit";
+    public static final String STATES = "states";
+    public static final String COMPONENTS = "components";
+    public static final String CYCLE = "cycle";
+    public static final String CLOSURE = "closure";
+
+    public static final String ID = "id";
+    public static final String TYPE = "type";
+    public static final String VALID = "valid";
+    public static final String REASON = "reason";
+    public static final String PHASE = "phase";
+
+    /** Numeric fields of each entry of {@code states}, before {@code phase}. */
+    public static final List<String> STATE_NUMBERS = List.of(
+            "p_Pa", "T_K", "h_J_per_kg", "s_J_per_kgK", "v_m3_per_kg", "x");
+
+    /** Numeric field of each state after {@code phase}. */
+    public static final String SATURATION_MARGIN = "saturation_margin_K";
+
+    /** Numeric fields of each entry of {@code components}. */
+    public static final List<String> COMPONENT_NUMBERS = List.of(
+            "heat_in_W", "work_out_W", "isentropic_efficiency", "exergy_destruction_W");
+
+    /** Fields of the {@code cycle} object. */
+    public static final List<String> CYCLE_NUMBERS = List.of(
+            "heat_added_W", "heat_rejected_W", "turbine_work_W", "pump_work_W", "net_work_W",
+            "thermal_efficiency", "back_work_ratio", "heat_rate_kJ_per_kWh", "carnot_efficiency",
+            "mean_temperature_carnot_efficiency");
+
+    /** Numeric fields of each entry of {@code closure}. */
+    public static final List<String> CLOSURE_NUMBERS = List.of("residual_W", "sigma_W", "z");
+
+    private ResultFields() {
+    }
+}

@@ -1,0 +1,137 @@
+package org.steamtally.dashboard.json;
+
+import static org.junit.jupiter.api.Assertions.assertAll;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.StringWriter;
+import java.nio.charset.StandardCharsets;
+import java.time.Instant;
+import java.util.List;
+import java.util.Optional;
+import java.util.OptionalDouble;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.ValueSource;
+import org.steamtally.calc.cycle.ComponentResult;
+import org.steamtally.calc.cycle.CycleResult;
+import org.steamtally.calc.cycle.UnitResult;
+
+class ResultJsonTest {
+
+    static String resource(String name) throws IOException {
+        try (InputStream in = ResultJsonTest.class.getResourceAsStream(name)) {
+            if (in == null) {
+                throw new IOException("missing test resource " + name);
+            }
+            return new String(in.readAllBytes(), StandardCharsets.UTF_8);
+        }
+    }
+
+    @Test
+    void handBuiltRecordWritesExactlyTheCommittedJson() throws IOException {
+        String golden = resource("unit2-result.jsonl").strip();
+        assertEquals(golden, ResultJson.write(ResultFixture.unit2()));
+    }
+
+    @Test
+    void recordReadsBackEqualToTheOneWritten() {
+        UnitResult written = ResultFixture.unit2();
+        assertEquals(written, ResultJson.read(ResultJson.write(written)));
+    }
+
+    @Test
+    void emptyValuesAreNullAndReadBackEmpty() {
+        UnitResult empty = ResultFixture.allEmpty();
+        String json = ResultJson.write(empty);
+        assertAll(
+                () -> assertTrue(json.contains("\"p_Pa\":null"), json),
+                () -> assertTrue(json.contains("\"phase\":null"), json),
+                () -> assertTrue(json.contains("\"thermal_efficiency\":null"), json),
+                () -> assertTrue(json.contains("\"closure\":[]"), json),
+                () -> assertFalse(json.contains("NaN"), json),
+                () -> assertEquals(empty, ResultJson.read(json)));
+    }
+
+    @Test
+    void timestampIsUtcWithThreeFractionalDigitsCutToTheMillisecond() {
+        assertAll(
+                () -> assertEquals("2026-12-01T00:00:00.000Z", ResultJson.timestamp(Instant.parse("2026-12-01T00:00:00Z"))),
+                () -> assertEquals("2026-12-01T00:00:00.123Z",
+                        ResultJson.timestamp(Instant.parse("2026-12-01T00:00:00.123999Z"))));
+    }
+
+    /**
+     * Java 17's Double.toString writes 1.0E23 as 9.999999999999999E22 and 2.0E-3 style values longer
+     * than needed for some doubles (JDK-4511638); the writer gives the shortest decimal that reads back.
+     */
+    @ParameterizedTest
+    @ValueSource(doubles = {1.0E23, 0.30000000000000004, 2.0E-3, 4.9E-324, 1.7976931348623157E308, -0.0})
+    void numbersAreWrittenAsTheShortestDecimalThatReadsBackToTheSameDouble(double value) {
+        UnitResult r = withHeatAdded(value);
+        String json = ResultJson.write(r);
+        String written = json.substring(json.indexOf("\"heat_added_W\":") + 15, json.indexOf(",\"heat_rejected_W\""));
+        assertAll(
+                () -> assertEquals(Double.doubleToLongBits(value), Double.doubleToLongBits(Double.parseDouble(written))),
+                () -> assertFalse(written.startsWith("9.99999"), written));
+    }
+
+    @Test
+    void nonFiniteValueIsRefusedRatherThanWritten() {
+        assertThrows(IllegalArgumentException.class, () -> ResultJson.write(withHeatAdded(Double.NaN)));
+    }
+
+    @Test
+    void jsonLinesWriterEndsEachRecordWithANewline() throws IOException {
+        StringWriter text = new StringWriter();
+        try (ResultJsonLinesWriter w = new ResultJsonLinesWriter(text)) {
+            w.write(ResultFixture.unit2());
+            w.write(ResultFixture.allEmpty());
+        }
+        String[] lines = text.toString().split("\n", -1);
+        assertAll(
+                () -> assertEquals(3, lines.length),
+                () -> assertEquals("", lines[2]),
+                () -> assertEquals(ResultFixture.allEmpty(), ResultJson.read(lines[1])));
+    }
+
+    @ParameterizedTest
+    @ValueSource(strings = {
+            "",
+            "[]",
+            "{\"ts\":\"2026-12-01T00:00:00Z\"}",
+            "{\"ts\":\"yesterday\",\"site\":\"s\",\"unit\":\"u\",\"states\":[],\"components\":[],\"cycle\":{},\"closure\":[]}",
+    })
+    void textThatIsNotAResultRecordIsRefusedWithAFormatException(String text) {
+        assertThrows(ResultFormatException.class, () -> ResultJson.read(text));
+    }
+
+    @Test
+    void missingFieldIsNamedInTheMessage() {
+        String json = ResultJson.write(ResultFixture.unit2()).replace("\"work_out_W\":1.12E8,", "");
+        ResultFormatException e = assertThrows(ResultFormatException.class, () -> ResultJson.read(json));
+        assertTrue(e.getMessage().contains("component turbine: field work_out_W is missing"), e.getMessage());
+    }
+
+    @Test
+    void recordBreakingItsOwnRulesIsAFormatFault() {
+        String json = ResultJson.write(ResultFixture.unit2())
+                .replace("\"valid\":false,\"reason\":\"state condensate is invalid\"", "\"valid\":false,\"reason\":null");
+        assertThrows(ResultFormatException.class, () -> ResultJson.read(json));
+    }
+
+    private static UnitResult withHeatAdded(double value) {
+        UnitResult base = ResultFixture.allEmpty();
+        CycleResult cycle = new CycleResult(OptionalDouble.of(value), OptionalDouble.empty(), OptionalDouble.empty(),
+                OptionalDouble.empty(), OptionalDouble.empty(), OptionalDouble.empty(), OptionalDouble.empty(),
+                OptionalDouble.empty(), OptionalDouble.empty(), OptionalDouble.empty());
+        return new UnitResult(base.timestamp(), base.site(), base.unit(), base.states(),
+                List.of(new ComponentResult("turbine", "turbine", OptionalDouble.empty(), OptionalDouble.empty(),
+                        OptionalDouble.empty(), OptionalDouble.empty(), false, Optional.of("no inlet"))),
+                cycle, base.closure());
+    }
+}
