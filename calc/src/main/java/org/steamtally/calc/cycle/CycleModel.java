@@ -1000,6 +1000,7 @@ public final class CycleModel {
         readSensors(snapshot);
         fixDirectStates();
         checkPressureChanges();
+        checkDirectPhases();
         solveFlows();
         evaluateGroups();
         fixBalanceStates();
@@ -1075,7 +1076,6 @@ public final class CycleModel {
                 takePoint(j);
                 dEnthalpy[j][ps] = point.dhdp;
                 dEnthalpy[j][ts] = point.dhdT;
-                checkExpectedPhase(j, "measured");
             } else if (fix[j] == FIX_PX) {
                 if (!pressureKnown[j]) {
                     continue;
@@ -1088,7 +1088,6 @@ public final class CycleModel {
                 }
                 takePoint(j);
                 dEnthalpy[j][ps] = point.dhdp;
-                checkExpectedPhase(j, "declared");
             }
         }
     }
@@ -1137,6 +1136,17 @@ public final class CycleModel {
             invalidate(j, "as " + expectWhere[j] + " it must be liquid, but the " + how + " state is "
                     + (phase[j] == PHASE_VAPOUR ? "vapour, " + margin[j] + " K above saturation"
                     : "wet, quality " + quality[j]) + " at " + pressure[j] + " Pa");
+        }
+    }
+
+    /** After the pressure checks, whose reasons are the more specific when both apply. */
+    private void checkDirectPhases() {
+        for (int j = 0; j < stateCount; j++) {
+            if (fix[j] == FIX_PT) {
+                checkExpectedPhase(j, "measured");
+            } else if (fix[j] == FIX_PX) {
+                checkExpectedPhase(j, "declared");
+            }
         }
     }
 
