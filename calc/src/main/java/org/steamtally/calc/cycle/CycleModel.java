@@ -1299,10 +1299,10 @@ public final class CycleModel {
                     double hOut;
                     double cpOut;
                     try {
-                        point.setPT(groupPressure[g], value[s[1]]);
+                        point.setEnthalpyPT(groupPressure[g], value[s[1]]);
                         hIn = point.h;
                         cpIn = point.dhdT;
-                        point.setPT(groupPressure[g], value[s[2]]);
+                        point.setEnthalpyPT(groupPressure[g], value[s[2]]);
                         hOut = point.h;
                         cpOut = point.dhdT;
                     } catch (SteamRangeException | IllegalStateException e) {

@@ -24,11 +24,12 @@ import org.steamtally.calc.steam.SteamRangeException;
 final class StatePoint {
 
     /**
-     * Relative pressure step of the central differences for (∂h/∂p): truncation error is of
-     * order step² (1e-10 relative) and rounding of order 1e-16·h/(step·p), both far below the
-     * uncertainty of any pressure sensor.
+     * Relative pressure step of the forward differences for (∂h/∂p), used only as sensitivity
+     * coefficients of the uncertainty propagation: truncation error of order the step (1e-6
+     * relative) and rounding of order 1e-16·h/(step·p·∂h/∂p), below 1e-7 for water and steam at
+     * plant pressures; an uncertainty needs two significant digits.
      */
-    private static final double RELATIVE_PRESSURE_STEP = 1e-5;
+    private static final double RELATIVE_PRESSURE_STEP = 1e-6;
 
     double p;
     double T;
@@ -62,14 +63,14 @@ final class StatePoint {
                 s = Region1.entropy(p, T);
                 v = Region1.specificVolume(p, T);
                 dhdT = Region1.isobaricHeatCapacity(p, T);
-                dhdp = (Region1.enthalpy(p + dp, T) - Region1.enthalpy(p - dp, T)) / (2 * dp);
+                dhdp = (Region1.enthalpy(p + dp, T) - h) / dp;
                 break;
             case REGION_2:
                 h = Region2.enthalpy(p, T);
                 s = Region2.entropy(p, T);
                 v = Region2.specificVolume(p, T);
                 dhdT = Region2.isobaricHeatCapacity(p, T);
-                dhdp = (Region2.enthalpy(p + dp, T) - Region2.enthalpy(p - dp, T)) / (2 * dp);
+                dhdp = (Region2.enthalpy(p + dp, T) - h) / dp;
                 break;
             case REGION_3: {
                 double rho = Region3.density(p, T);
@@ -77,8 +78,7 @@ final class StatePoint {
                 s = Region3.entropy(rho, T);
                 v = 1.0 / rho;
                 dhdT = Region3.isobaricHeatCapacity(rho, T);
-                dhdp = (Region3.enthalpy(Region3.density(p + dp, T), T)
-                        - Region3.enthalpy(Region3.density(p - dp, T), T)) / (2 * dp);
+                dhdp = (Region3.enthalpy(Region3.density(p + dp, T), T) - h) / dp;
                 break;
             }
             default:
@@ -86,7 +86,43 @@ final class StatePoint {
                 s = Region5.entropy(p, T);
                 v = Region5.specificVolume(p, T);
                 dhdT = Region5.isobaricHeatCapacity(p, T);
-                dhdp = (Region5.enthalpy(p + dp, T) - Region5.enthalpy(p - dp, T)) / (2 * dp);
+                dhdp = (Region5.enthalpy(p + dp, T) - h) / dp;
+                break;
+        }
+    }
+
+    /**
+     * Fills only h and cp at (p, T), for a stream whose other properties are not reported (the
+     * cooling water).
+     *
+     * @throws SteamRangeException   outside the range of IF97
+     * @throws IllegalStateException if a region-3 density iteration does not converge
+     */
+    void setEnthalpyPT(double pressurePa, double temperatureK) {
+        Region region = Steam.regionPT(pressurePa, temperatureK);
+        p = pressurePa;
+        T = temperatureK;
+        twoPhase = false;
+        x = 0.0;
+        dhdp = 0.0;
+        switch (region) {
+            case REGION_1:
+                h = Region1.enthalpy(p, T);
+                dhdT = Region1.isobaricHeatCapacity(p, T);
+                break;
+            case REGION_2:
+                h = Region2.enthalpy(p, T);
+                dhdT = Region2.isobaricHeatCapacity(p, T);
+                break;
+            case REGION_3: {
+                double rho = Region3.density(p, T);
+                h = Region3.enthalpy(rho, T);
+                dhdT = Region3.isobaricHeatCapacity(rho, T);
+                break;
+            }
+            default:
+                h = Region5.enthalpy(p, T);
+                dhdT = Region5.isobaricHeatCapacity(p, T);
                 break;
         }
     }
@@ -107,24 +143,34 @@ final class StatePoint {
         twoPhase = true;
         x = quality;
         dhdT = 0.0;
-        double hL = liquidEnthalpy(p, ts);
-        double hV = vapourEnthalpy(p, ts);
-        h = hL + quality * (hV - hL);
-        double sL = liquidEntropy(p, ts);
-        s = sL + quality * (vapourEntropy(p, ts) - sL);
-        double vL = liquidVolume(p, ts);
-        v = vL + quality * (vapourVolume(p, ts) - vL);
         double dp = RELATIVE_PRESSURE_STEP * pressurePa;
-        // One-sided next to the ends of the line, where p ± dp would leave it.
-        double pUp = Math.min(p + dp, If97Constants.CRITICAL_PRESSURE_PA);
-        double pDown = Math.max(p - dp, Steam.TRIPLE_POINT_PRESSURE_PA);
-        dhdp = (wetEnthalpy(pUp, quality) - wetEnthalpy(pDown, quality)) / (pUp - pDown);
-    }
-
-    private static double wetEnthalpy(double pressurePa, double quality) {
-        double ts = Steam.saturationTemperature(pressurePa);
-        double hL = liquidEnthalpy(pressurePa, ts);
-        return hL + quality * (vapourEnthalpy(pressurePa, ts) - hL);
+        // Forward, or backward next to the critical point, where p + dp would leave the line.
+        if (p + dp > If97Constants.CRITICAL_PRESSURE_PA) {
+            dp = -dp;
+        }
+        double pStep = p + dp;
+        double tsStep = Steam.saturationTemperature(pStep);
+        // A saturated liquid or vapour, the common fixes, needs only its own side of the line.
+        if (quality == 0.0) {
+            h = liquidEnthalpy(p, ts);
+            s = liquidEntropy(p, ts);
+            v = liquidVolume(p, ts);
+            dhdp = (liquidEnthalpy(pStep, tsStep) - h) / dp;
+        } else if (quality == 1.0) {
+            h = vapourEnthalpy(p, ts);
+            s = vapourEntropy(p, ts);
+            v = vapourVolume(p, ts);
+            dhdp = (vapourEnthalpy(pStep, tsStep) - h) / dp;
+        } else {
+            double hL = liquidEnthalpy(p, ts);
+            h = hL + quality * (vapourEnthalpy(p, ts) - hL);
+            double sL = liquidEntropy(p, ts);
+            s = sL + quality * (vapourEntropy(p, ts) - sL);
+            double vL = liquidVolume(p, ts);
+            v = vL + quality * (vapourVolume(p, ts) - vL);
+            double hLStep = liquidEnthalpy(pStep, tsStep);
+            dhdp = (hLStep + quality * (vapourEnthalpy(pStep, tsStep) - hLStep) - h) / dp;
+        }
     }
 
     /**
