@@ -1,0 +1,319 @@
+package org.steamtally.calc.cycle;
+
+import org.steamtally.calc.steam.If97Constants;
+import org.steamtally.calc.steam.Region;
+import org.steamtally.calc.steam.Region1;
+import org.steamtally.calc.steam.Region2;
+import org.steamtally.calc.steam.Region3;
+import org.steamtally.calc.steam.Region5;
+import org.steamtally.calc.steam.Steam;
+import org.steamtally.calc.steam.SteamRangeException;
+
+/**
+ * A reusable holder for one water/steam state by IAPWS-IF97 (IAPWS R7-97(2012)), filled from one
+ * input pair without allocating, with the derivatives the uncertainty propagation needs. It calls
+ * the region equations of {@code org.steamtally.calc.steam} directly, after the facade {@link Steam}
+ * has validated the pair and chosen the region, so that the hot path builds no
+ * {@link org.steamtally.calc.steam.SteamState} record per state.
+ *
+ * <p>On the saturation line the phases come from regions 1 and 2 up to 623.15 K and from region 3
+ * above, as R7-97(2012), section 8, prescribes (the same choice as the facade's wet states).
+ *
+ * <p>Not thread-safe: one instance per {@link CycleModel}.
+ */
+final class StatePoint {
+
+    /**
+     * Relative pressure step of the forward differences for (∂h/∂p), used only as sensitivity
+     * coefficients of the uncertainty propagation: truncation error of order the step (1e-6
+     * relative) and rounding of order 1e-16·h/(step·p·∂h/∂p), below 1e-7 for water and steam at
+     * plant pressures; an uncertainty needs two significant digits.
+     */
+    private static final double RELATIVE_PRESSURE_STEP = 1e-6;
+
+    double p;
+    double T;
+    double h;
+    double s;
+    double v;
+    /** Vapour quality, meaningful only when {@link #twoPhase}. */
+    double x;
+    boolean twoPhase;
+    /** (∂h/∂p) along the fix: at constant T for (p, T), at constant quality on the saturation line. */
+    double dhdp;
+    /** (∂h/∂T) at constant p, that is cp; 0 where the fix has no temperature. */
+    double dhdT;
+
+    /**
+     * Fills the single-phase state at (p, T) with h, s, v, cp and (∂h/∂p)_T.
+     *
+     * @throws SteamRangeException   outside the range of IF97
+     * @throws IllegalStateException if a region-3 density iteration does not converge
+     */
+    void setPT(double pressurePa, double temperatureK) {
+        Region region = Steam.regionPT(pressurePa, temperatureK);
+        p = pressurePa;
+        T = temperatureK;
+        twoPhase = false;
+        x = 0.0;
+        double dp = RELATIVE_PRESSURE_STEP * pressurePa;
+        switch (region) {
+            case REGION_1:
+                h = Region1.enthalpy(p, T);
+                s = Region1.entropy(p, T);
+                v = Region1.specificVolume(p, T);
+                dhdT = Region1.isobaricHeatCapacity(p, T);
+                dhdp = (Region1.enthalpy(p + dp, T) - h) / dp;
+                break;
+            case REGION_2:
+                h = Region2.enthalpy(p, T);
+                s = Region2.entropy(p, T);
+                v = Region2.specificVolume(p, T);
+                dhdT = Region2.isobaricHeatCapacity(p, T);
+                dhdp = (Region2.enthalpy(p + dp, T) - h) / dp;
+                break;
+            case REGION_3: {
+                double rho = Region3.density(p, T);
+                h = Region3.enthalpy(rho, T);
+                s = Region3.entropy(rho, T);
+                v = 1.0 / rho;
+                dhdT = Region3.isobaricHeatCapacity(rho, T);
+                dhdp = (Region3.enthalpy(Region3.density(p + dp, T), T) - h) / dp;
+                break;
+            }
+            default:
+                h = Region5.enthalpy(p, T);
+                s = Region5.entropy(p, T);
+                v = Region5.specificVolume(p, T);
+                dhdT = Region5.isobaricHeatCapacity(p, T);
+                dhdp = (Region5.enthalpy(p + dp, T) - h) / dp;
+                break;
+        }
+    }
+
+    /**
+     * Fills only h and cp at (p, T), for a stream whose other properties are not reported (the
+     * cooling water).
+     *
+     * @throws SteamRangeException   outside the range of IF97
+     * @throws IllegalStateException if a region-3 density iteration does not converge
+     */
+    void setEnthalpyPT(double pressurePa, double temperatureK) {
+        Region region = Steam.regionPT(pressurePa, temperatureK);
+        p = pressurePa;
+        T = temperatureK;
+        twoPhase = false;
+        x = 0.0;
+        dhdp = 0.0;
+        switch (region) {
+            case REGION_1:
+                h = Region1.enthalpy(p, T);
+                dhdT = Region1.isobaricHeatCapacity(p, T);
+                break;
+            case REGION_2:
+                h = Region2.enthalpy(p, T);
+                dhdT = Region2.isobaricHeatCapacity(p, T);
+                break;
+            case REGION_3: {
+                double rho = Region3.density(p, T);
+                h = Region3.enthalpy(rho, T);
+                dhdT = Region3.isobaricHeatCapacity(rho, T);
+                break;
+            }
+            default:
+                h = Region5.enthalpy(p, T);
+                dhdT = Region5.isobaricHeatCapacity(p, T);
+                break;
+        }
+    }
+
+    /**
+     * Fills the saturated or wet state at pressure p and quality x, with (∂h/∂p) at constant x
+     * along the saturation line.
+     *
+     * @throws SteamRangeException outside 611.213 Pa to 22.064 MPa or for x outside 0 to 1
+     */
+    void setPX(double pressurePa, double quality) {
+        if (!(quality >= 0.0 && quality <= 1.0)) {
+            throw new SteamRangeException("p,x", "x", quality, "1", "0 to 1");
+        }
+        double ts = Steam.saturationTemperature(pressurePa);
+        p = pressurePa;
+        T = ts;
+        twoPhase = true;
+        x = quality;
+        dhdT = 0.0;
+        double dp = RELATIVE_PRESSURE_STEP * pressurePa;
+        // Forward, or backward next to the critical point, where p + dp would leave the line.
+        if (p + dp > If97Constants.CRITICAL_PRESSURE_PA) {
+            dp = -dp;
+        }
+        double pStep = p + dp;
+        double tsStep = Steam.saturationTemperature(pStep);
+        // A saturated liquid or vapour, the common fixes, needs only its own side of the line.
+        if (quality == 0.0) {
+            h = liquidEnthalpy(p, ts);
+            s = liquidEntropy(p, ts);
+            v = liquidVolume(p, ts);
+            dhdp = (liquidEnthalpy(pStep, tsStep) - h) / dp;
+        } else if (quality == 1.0) {
+            h = vapourEnthalpy(p, ts);
+            s = vapourEntropy(p, ts);
+            v = vapourVolume(p, ts);
+            dhdp = (vapourEnthalpy(pStep, tsStep) - h) / dp;
+        } else {
+            double hL = liquidEnthalpy(p, ts);
+            h = hL + quality * (vapourEnthalpy(p, ts) - hL);
+            double sL = liquidEntropy(p, ts);
+            s = sL + quality * (vapourEntropy(p, ts) - sL);
+            double vL = liquidVolume(p, ts);
+            v = vL + quality * (vapourVolume(p, ts) - vL);
+            double hLStep = liquidEnthalpy(pStep, tsStep);
+            dhdp = (hLStep + quality * (vapourEnthalpy(pStep, tsStep) - hLStep) - h) / dp;
+        }
+    }
+
+    /**
+     * Fills the state at (p, h): single phase, or on the saturation line with its quality. No
+     * derivatives are filled (the caller propagates through the balance that gave h).
+     *
+     * @throws SteamRangeException   outside the range of IF97
+     * @throws IllegalStateException if an iteration does not converge
+     */
+    void setPH(double pressurePa, double enthalpy) {
+        Region region = Steam.regionPH(pressurePa, enthalpy);
+        p = pressurePa;
+        h = enthalpy;
+        dhdp = 0.0;
+        dhdT = 0.0;
+        twoPhase = false;
+        x = 0.0;
+        switch (region) {
+            case REGION_1:
+                T = Region1.temperaturePH(p, h);
+                s = Region1.entropy(p, T);
+                v = Region1.specificVolume(p, T);
+                break;
+            case REGION_2:
+                T = Region2.temperaturePH(p, h);
+                s = Region2.entropy(p, T);
+                v = Region2.specificVolume(p, T);
+                break;
+            case REGION_3: {
+                double rho = Region3.densityPH(p, h);
+                T = Region3.temperaturePH(p, h);
+                s = Region3.entropy(rho, T);
+                v = 1.0 / rho;
+                break;
+            }
+            case REGION_4: {
+                double ts = Steam.saturationTemperature(p);
+                double hL = liquidEnthalpy(p, ts);
+                double hV = vapourEnthalpy(p, ts);
+                T = ts;
+                twoPhase = true;
+                x = clippedQuality(h, hL, hV);
+                double sL = liquidEntropy(p, ts);
+                s = sL + x * (vapourEntropy(p, ts) - sL);
+                double vL = liquidVolume(p, ts);
+                v = vL + x * (vapourVolume(p, ts) - vL);
+                break;
+            }
+            default:
+                T = Region5.temperaturePH(p, h);
+                s = Region5.entropy(p, T);
+                v = Region5.specificVolume(p, T);
+                break;
+        }
+    }
+
+    /**
+     * Fills the state at (p, s): single phase, or on the saturation line with its quality. No
+     * derivatives are filled.
+     *
+     * @throws SteamRangeException   outside the range of IF97
+     * @throws IllegalStateException if an iteration does not converge
+     */
+    void setPS(double pressurePa, double entropy) {
+        Region region = Steam.regionPS(pressurePa, entropy);
+        p = pressurePa;
+        s = entropy;
+        dhdp = 0.0;
+        dhdT = 0.0;
+        twoPhase = false;
+        x = 0.0;
+        switch (region) {
+            case REGION_1:
+                T = Region1.temperaturePS(p, s);
+                h = Region1.enthalpy(p, T);
+                v = Region1.specificVolume(p, T);
+                break;
+            case REGION_2:
+                T = Region2.temperaturePS(p, s);
+                h = Region2.enthalpy(p, T);
+                v = Region2.specificVolume(p, T);
+                break;
+            case REGION_3: {
+                double rho = Region3.densityPS(p, s);
+                T = Region3.temperaturePS(p, s);
+                h = Region3.enthalpy(rho, T);
+                v = 1.0 / rho;
+                break;
+            }
+            case REGION_4: {
+                double ts = Steam.saturationTemperature(p);
+                double sL = liquidEntropy(p, ts);
+                double sV = vapourEntropy(p, ts);
+                T = ts;
+                twoPhase = true;
+                x = clippedQuality(s, sL, sV);
+                double hL = liquidEnthalpy(p, ts);
+                h = hL + x * (vapourEnthalpy(p, ts) - hL);
+                double vL = liquidVolume(p, ts);
+                v = vL + x * (vapourVolume(p, ts) - vL);
+                break;
+            }
+            default:
+                T = Region5.temperaturePS(p, s);
+                h = Region5.enthalpy(p, T);
+                v = Region5.specificVolume(p, T);
+                break;
+        }
+    }
+
+    /** Rounding at the ends of the line is clipped so that x stays within 0 to 1. */
+    private static double clippedQuality(double value, double liquid, double vapour) {
+        if (vapour <= liquid) {
+            return 0.0;
+        }
+        return Math.min(1.0, Math.max(0.0, (value - liquid) / (vapour - liquid)));
+    }
+
+    private static boolean belowRegion3(double T) {
+        return T <= Steam.REGION_13_TEMPERATURE_K;
+    }
+
+    private static double liquidEnthalpy(double p, double T) {
+        return belowRegion3(T) ? Region1.enthalpy(p, T) : Region3.enthalpy(Region3.saturatedLiquidDensity(T, p), T);
+    }
+
+    private static double vapourEnthalpy(double p, double T) {
+        return belowRegion3(T) ? Region2.enthalpy(p, T) : Region3.enthalpy(Region3.saturatedVapourDensity(T, p), T);
+    }
+
+    private static double liquidEntropy(double p, double T) {
+        return belowRegion3(T) ? Region1.entropy(p, T) : Region3.entropy(Region3.saturatedLiquidDensity(T, p), T);
+    }
+
+    private static double vapourEntropy(double p, double T) {
+        return belowRegion3(T) ? Region2.entropy(p, T) : Region3.entropy(Region3.saturatedVapourDensity(T, p), T);
+    }
+
+    private static double liquidVolume(double p, double T) {
+        return belowRegion3(T) ? Region1.specificVolume(p, T) : 1.0 / Region3.saturatedLiquidDensity(T, p);
+    }
+
+    private static double vapourVolume(double p, double T) {
+        return belowRegion3(T) ? Region2.specificVolume(p, T) : 1.0 / Region3.saturatedVapourDensity(T, p);
+    }
+}
