@@ -56,6 +56,7 @@ public final class ResultCsvWriter implements Closeable, Flushable {
             }
             names.add(prefix + ResultFields.PHASE);
             names.add(prefix + ResultFields.SATURATION_MARGIN);
+            names.add(prefix + ResultFields.MASS_FLOW);
             names.add(prefix + ResultFields.VALID);
             names.add(prefix + ResultFields.REASON);
         }
@@ -107,6 +108,7 @@ public final class ResultCsvWriter implements Closeable, Flushable {
             putNumbers(cells, prefix, "state " + s.id(), ResultFields.STATE_NUMBERS, ResultJson.stateNumbers(s));
             put(cells, prefix + ResultFields.PHASE, s.phase().map(Phase::label).orElse(""));
             putNumber(cells, prefix, "state " + s.id(), ResultFields.SATURATION_MARGIN, s.saturationMarginK());
+            putNumber(cells, prefix, "state " + s.id(), ResultFields.MASS_FLOW, s.massFlowKgPerS());
             put(cells, prefix + ResultFields.VALID, Boolean.toString(s.valid()));
             put(cells, prefix + ResultFields.REASON, s.reason().orElse(""));
         }

@@ -30,6 +30,9 @@ public final class ResultFields {
     /** Numeric field of each state after {@code phase}. */
     public static final String SATURATION_MARGIN = "saturation_margin_K";
 
+    /** Numeric field of each state after {@code saturation_margin_K}: the stream's mass flow. */
+    public static final String MASS_FLOW = "m_kg_per_s";
+
     /** Numeric fields of each entry of {@code components}. */
     public static final List<String> COMPONENT_NUMBERS = List.of(
             "heat_in_W", "work_out_W", "isentropic_efficiency", "exergy_destruction_W");

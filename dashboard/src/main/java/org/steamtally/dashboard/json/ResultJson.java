@@ -90,6 +90,7 @@ public final class ResultJson {
                 writeNumbers(g, "state " + s.id(), ResultFields.STATE_NUMBERS, stateNumbers(s));
                 writeText(g, ResultFields.PHASE, s.phase().map(Phase::label));
                 writeNumber(g, "state " + s.id(), ResultFields.SATURATION_MARGIN, s.saturationMarginK());
+                writeNumber(g, "state " + s.id(), ResultFields.MASS_FLOW, s.massFlowKgPerS());
                 g.writeBooleanField(ResultFields.VALID, s.valid());
                 writeText(g, ResultFields.REASON, s.reason());
                 g.writeEndObject();
@@ -154,7 +155,8 @@ public final class ResultJson {
             OptionalDouble[] n = numbers(s, ResultFields.STATE_NUMBERS, where);
             Optional<Phase> phase = optionalText(s, ResultFields.PHASE, where).map(label -> phase(label, where));
             states.add(construct(where, () -> new StateResult(id, n[0], n[1], n[2], n[3], n[4], n[5], phase,
-                    number(s, ResultFields.SATURATION_MARGIN, where), bool(s, ResultFields.VALID, where),
+                    number(s, ResultFields.SATURATION_MARGIN, where), number(s, ResultFields.MASS_FLOW, where),
+                    bool(s, ResultFields.VALID, where),
                     optionalText(s, ResultFields.REASON, where))));
         }
 

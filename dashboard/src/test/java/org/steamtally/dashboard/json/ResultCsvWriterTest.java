@@ -57,7 +57,7 @@ class ResultCsvWriterTest {
         UnitResult full = ResultFixture.unit2();
         StateResult extra = new StateResult("reheat", ResultFixture.none(), ResultFixture.none(), ResultFixture.none(),
                 ResultFixture.none(), ResultFixture.none(), ResultFixture.none(), Optional.empty(), ResultFixture.none(),
-                false, Optional.of("not measured"));
+                ResultFixture.none(), false, Optional.of("not measured"));
         UnitResult more = new UnitResult(full.timestamp(), full.site(), full.unit(), List.of(extra),
                 full.components(), full.cycle(), full.closure());
         StringWriter text = new StringWriter();
@@ -73,7 +73,7 @@ class ResultCsvWriterTest {
         UnitResult empty = ResultFixture.allEmpty();
         StateResult state = new StateResult("main_steam", ResultFixture.none(), ResultFixture.none(),
                 ResultFixture.none(), ResultFixture.none(), ResultFixture.none(), ResultFixture.none(), Optional.empty(),
-                ResultFixture.none(), false, Optional.of("sensors \"PT-101\", TT-101 missing"));
+                ResultFixture.none(), ResultFixture.none(), false, Optional.of("sensors \"PT-101\", TT-101 missing"));
         UnitResult r = new UnitResult(empty.timestamp(), empty.site(), empty.unit(), List.of(state),
                 empty.components(), empty.cycle(), empty.closure());
         assertTrue(csv(r).contains(",\"sensors \"\"PT-101\"\", TT-101 missing\","), csv(r));

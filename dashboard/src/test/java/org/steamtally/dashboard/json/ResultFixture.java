@@ -31,13 +31,13 @@ final class ResultFixture {
 
     static UnitResult unit2() {
         StateResult mainSteam = new StateResult("main_steam", of(14.2e6), of(808.15), of(3.4195e6), of(6.5421e3),
-                of(0.023805), none(), Optional.of(Phase.VAPOUR), of(193.4), true, Optional.empty());
+                of(0.023805), none(), Optional.of(Phase.VAPOUR), of(193.4), of(95.3), true, Optional.empty());
         StateResult exhaust = new StateResult("exhaust", of(8.1e3), of(314.66), of(2.2903e6), of(7.3205e3),
-                of(16.11), of(0.8853), Optional.of(Phase.TWO_PHASE), of(0.0), true, Optional.empty());
+                of(16.11), of(0.8853), Optional.of(Phase.TWO_PHASE), of(0.0), of(95.3), true, Optional.empty());
         StateResult condensate = new StateResult("condensate", of(8.1e3), none(), none(), none(), none(), none(),
-                Optional.empty(), none(), false, Optional.of("sensor TT-301 is stale"));
+                Optional.empty(), none(), of(95.3), false, Optional.of("sensor TT-301 is stale"));
         StateResult feedwater = new StateResult("feedwater", of(15.1e6), of(316.2), of(1.8155e5), of(0.5859e3),
-                of(0.0010028), none(), Optional.of(Phase.LIQUID), of(299.1), true, Optional.empty());
+                of(0.0010028), none(), Optional.of(Phase.LIQUID), of(299.1), of(95.3), true, Optional.empty());
 
         ComponentResult boiler = new ComponentResult("boiler", "steam_generator", of(HEAT_ADDED_W), of(0.0),
                 none(), of(1.32e8), true, Optional.empty());
@@ -63,7 +63,7 @@ final class ResultFixture {
     /** A record of the same unit in which nothing could be computed. */
     static UnitResult allEmpty() {
         StateResult state = new StateResult("main_steam", none(), none(), none(), none(), none(), none(),
-                Optional.empty(), none(), false, Optional.of("sensor PT-101 is missing"));
+                Optional.empty(), none(), none(), false, Optional.of("sensor PT-101 is missing"));
         ComponentResult component = new ComponentResult("turbine", "turbine", none(), none(), none(), none(), false,
                 Optional.of("state main_steam is invalid"));
         CycleResult cycle = new CycleResult(none(), none(), none(), none(), none(), none(), none(), none(), none(),

@@ -68,7 +68,7 @@ public final class ReplayCommand implements Callable<Integer> {
         csv
     }
 
-    private final Optional<ReplaySeams> seams;
+    private final ReplaySeams seams;
 
     @ParentCommand
     private Launcher launcher;
@@ -106,23 +106,20 @@ public final class ReplayCommand implements Callable<Integer> {
             description = "Replay only this unit of the plant; needed for csv when the plant has several.")
     private String unitId;
 
-    /** The command with the seams this build installs ({@link ReplaySeams#installed()}). */
+    /** The command with the real loader, unit table and cycle model ({@link ReplaySeams#standard()}). */
     public ReplayCommand() {
-        this.seams = ReplaySeams.installed();
+        this(ReplaySeams.standard());
     }
 
     /** The command with the given seams. */
     public ReplayCommand(ReplaySeams seams) {
-        this.seams = Optional.of(Objects.requireNonNull(seams, "seams"));
+        this.seams = Objects.requireNonNull(seams, "seams");
     }
 
     @Override
     public Integer call() {
         PrintWriter err = spec.commandLine().getErr();
         PrintWriter stdout = spec.commandLine().getOut();
-        if (seams.isEmpty()) {
-            return unusable(err, "this build has no plant-description loader and cycle evaluator installed");
-        }
         try {
             checkDurations();
             PlantDescription plant = loadPlant();
@@ -130,12 +127,13 @@ public final class ReplayCommand implements Callable<Integer> {
             List<UnitEvaluator> evaluators = new ArrayList<>();
             for (UnitDescription unit : units) {
                 try {
-                    evaluators.add(seams.get().evaluatorFactory().compile(plant.siteId(), unit));
+                    evaluators.add(seams.evaluatorFactory().compile(plant.siteId(), unit));
                 } catch (IllegalArgumentException e) {
                     throw new ReplayInputException("unit " + unit.id() + " cannot be evaluated: " + e.getMessage());
                 }
             }
-            Replayer replayer = new Replayer(units, window, lateness, seams.get().unitConverter(), evaluators);
+            Replayer replayer = new Replayer(units, plant.atmosphericPressurePa(), window, lateness, seams.unitConverter(),
+                    evaluators);
             if (!replayer.hasTopics()) {
                 throw new ReplayInputException("no sensor of " + describe(units) + " in '" + config
                         + "' has a topic, so no line can be matched");
@@ -180,7 +178,7 @@ public final class ReplayCommand implements Callable<Integer> {
 
     private PlantDescription loadPlant() throws ReplayInputException {
         try {
-            return Objects.requireNonNull(seams.get().plantSource().load(config), "plant description");
+            return Objects.requireNonNull(seams.plantSource().load(config), "plant description");
         } catch (Exception e) {
             throw new ReplayInputException("cannot use plant description '" + config + "': " + reason(e));
         }

@@ -1,16 +1,14 @@
 package org.steamtally.deploy.replay;
 
 import java.util.Objects;
-import java.util.Optional;
-import java.util.ServiceLoader;
+import org.steamtally.calc.cycle.CycleModel;
+import org.steamtally.collector.units.Units;
+import org.steamtally.deploy.config.PlantDescriptionLoader;
 
 /**
  * What {@code replay} needs from the rest of steamtally: the plant-description loader, the
- * engineering-unit conversion and the cycle evaluator.
- *
- * <p>A build provides them through one {@link Provider} listed in
- * {@code META-INF/services/org.steamtally.deploy.replay.ReplaySeams$Provider}; without one,
- * {@code replay} says so and exits with status 2.
+ * engineering-unit conversion and the cycle evaluator. Tests pass fakes; {@link #standard()} wires
+ * the real ones.
  *
  * @param plantSource      reads {@code --config}
  * @param unitConverter    engineering unit to SI
@@ -24,13 +22,15 @@ public record ReplaySeams(PlantSource plantSource, UnitConverter unitConverter, 
         Objects.requireNonNull(evaluatorFactory, "evaluatorFactory");
     }
 
-    /** The seams of this build, if a provider is installed. */
-    public static Optional<ReplaySeams> installed() {
-        return ServiceLoader.load(Provider.class).findFirst().map(Provider::seams);
-    }
-
-    /** Supplies the seams; found through {@link ServiceLoader}. */
-    public interface Provider {
-        ReplaySeams seams();
+    /**
+     * The plant-description loader of {@code deploy.config}, the unit table of
+     * {@code collector.units} (gauge units with the site's atmospheric pressure) and the cycle model
+     * of {@code calc.cycle}.
+     */
+    public static ReplaySeams standard() {
+        return new ReplaySeams(
+                PlantDescriptionLoader::load,
+                (quantity, unit, value, atmosphericPa) -> Units.parse(unit, quantity).toSi(value, atmosphericPa),
+                (siteId, unit) -> CycleModel.compile(siteId, unit)::evaluate);
     }
 }

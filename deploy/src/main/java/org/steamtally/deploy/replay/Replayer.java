@@ -49,6 +49,8 @@ final class Replayer {
     private static final Instant NO_ARRIVAL = Instant.EPOCH;
 
     private final UnitConverter converter;
+    /** The site's atmospheric pressure, Pa, for readings in gauge-pressure units. */
+    private final double atmosphericPa;
     private final List<UnitDescription> units;
     private final List<SnapshotAligner> aligners = new ArrayList<>();
     private final List<UnitEvaluator> evaluators = new ArrayList<>();
@@ -84,9 +86,10 @@ final class Replayer {
      * @param converter  engineering unit to SI
      * @param evaluators one evaluator per entry of {@code units}
      */
-    Replayer(List<UnitDescription> units, Duration window, Duration lateness,
+    Replayer(List<UnitDescription> units, double atmosphericPa, Duration window, Duration lateness,
              UnitConverter converter, List<UnitEvaluator> evaluators) {
         this.converter = Objects.requireNonNull(converter, "converter");
+        this.atmosphericPa = atmosphericPa;
         this.units = List.copyOf(units);
         if (evaluators.size() != units.size()) {
             throw new IllegalArgumentException("one evaluator per unit");
@@ -184,7 +187,7 @@ final class Replayer {
             Sensor sensor = targets.get(i).sensor();
             String unit = reading.unit().orElse(sensor.engineeringUnit());
             try {
-                si[i] = converter.toSi(sensor.quantity(), unit, reading.value());
+                si[i] = converter.toSi(sensor.quantity(), unit, reading.value(), atmosphericPa);
             } catch (IllegalArgumentException e) {
                 return "sensor " + sensor.id() + ": unit '" + unit + "': " + e.getMessage();
             }

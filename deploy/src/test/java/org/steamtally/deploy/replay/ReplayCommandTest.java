@@ -275,13 +275,12 @@ class ReplayCommandTest {
     }
 
     @Test
-    void launcherListsReplayAndWithoutInstalledSeamsSaysSo() {
+    void launcherListsReplayAndNamesAMissingPlantDescription() {
         CommandRun help = CommandRun.of(new String[] {"--help"});
-        CommandRun run = CommandRun.of(new String[] {"replay", "--config", "plant.yaml", "--in", "-"});
+        CommandRun run = CommandRun.of(new String[] {"replay", "--config", "no-such-plant.yaml", "--in", "-"});
         assertAll(
                 () -> assertTrue(help.out().contains("replay"), help.out()),
                 () -> assertEquals(Launcher.EXIT_USAGE, run.status()),
-                () -> assertTrue(run.err().contains("steamtally replay: this build has no plant-description loader"),
-                        run.err()));
+                () -> assertTrue(run.err().contains("no-such-plant.yaml"), run.err()));
     }
 }

@@ -46,7 +46,7 @@ final class ReplayFakes {
     }
 
     /** SI units pass unchanged, MPa is scaled; anything else is unknown. */
-    static double toSi(Quantity quantity, String unit, double value) {
+    static double toSi(Quantity quantity, String unit, double value, double atmosphericPa) {
         if (unit.equals(quantity.siUnit())) {
             return value;
         }
@@ -70,7 +70,7 @@ final class ReplayFakes {
                     ? OptionalDouble.of(snapshot.valuesSi()[0]) : OptionalDouble.empty();
             StateResult state = new StateResult("main_steam", p, OptionalDouble.empty(), OptionalDouble.empty(),
                     OptionalDouble.empty(), OptionalDouble.empty(), OptionalDouble.empty(), Optional.empty(),
-                    OptionalDouble.empty(), allGood, allGood ? Optional.empty() : Optional.of("a sensor is not good"));
+                    OptionalDouble.empty(), OptionalDouble.empty(), allGood, allGood ? Optional.empty() : Optional.of("a sensor is not good"));
             CycleResult cycle = new CycleResult(OptionalDouble.empty(), OptionalDouble.empty(), OptionalDouble.empty(),
                     OptionalDouble.empty(), OptionalDouble.empty(), OptionalDouble.empty(), OptionalDouble.empty(),
                     OptionalDouble.empty(), OptionalDouble.empty(), OptionalDouble.empty());
