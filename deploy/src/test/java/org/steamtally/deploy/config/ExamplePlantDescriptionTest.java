@@ -12,6 +12,7 @@ import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.ValueSource;
+import org.steamtally.calc.cycle.CycleModel;
 import org.steamtally.calc.plant.Component;
 import org.steamtally.calc.plant.DeadState;
 import org.steamtally.calc.plant.PlantDescription;
@@ -35,6 +36,17 @@ class ExamplePlantDescriptionTest {
         PlantDescription plant = PlantDescriptionLoader.load(example(name));
         assertEquals("fernholm", plant.siteId());
         assertEquals(List.of(), PlantValidator.validate(plant));
+    }
+
+    // regenerative.yaml is not yet here: its drain mixer's energy balance restates the LP heater's, and
+    // its two feedwater flow meters measure one flow; both redundancies wait for the reconciliation.
+    @ParameterizedTest
+    @ValueSource(strings = {"simple.yaml", "reheat.yaml"})
+    void shippedExampleCompilesIntoACycleModel(String name) throws Exception {
+        PlantDescription plant = PlantDescriptionLoader.load(example(name));
+        for (UnitDescription unit : plant.units()) {
+            assertEquals(unit.id(), CycleModel.compile(plant.siteId(), unit).unitId());
+        }
     }
 
     @Test
