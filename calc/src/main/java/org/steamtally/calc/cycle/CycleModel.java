@@ -596,8 +596,7 @@ public final class CycleModel {
         List<Boolean> rEnergy = new ArrayList<>();
         List<Integer> rSensor = new ArrayList<>();
         List<String> rLabel = new ArrayList<>();
-        boolean portsResolved = problems.isEmpty();
-        if (portsResolved) {
+        if (problems.isEmpty()) {
             buildRows(components, rStates, rSigns, rEnergy, rSensor, rLabel, problems);
         }
         if (problems.isEmpty()) {
@@ -941,7 +940,28 @@ public final class CycleModel {
                 }
             }
         }
+        List<String> energyLabels = new ArrayList<>();
+        for (int r = 0; r < states.size(); r++) {
+            if (energy.get(r)) {
+                energyLabels.add(labels.get(r).substring("energy balance of ".length()));
+            }
+        }
+        boolean balancesAloneFixEverything = false;
+        boolean firstSensorRow = true;
         for (int r : order) {
+            if (sensorRows.get(r) >= 0 && firstSensorRow) {
+                firstSensorRow = false;
+                balancesAloneFixEverything = basis.rank() == flowCount;
+            }
+            if (balancesAloneFixEverything && sensorRows.get(r) >= 0 && problems.stream().noneMatch(
+                    p -> p.contains("the mass and energy balances alone leave no flow free"))) {
+                // The homogeneous balances have only the zero solution: the surplus is an energy
+                // balance, not the flow sensor that happens to come after it.
+                problems.add("flows are over-determined: the mass and energy balances alone leave no flow free"
+                        + " (they would force every flow to zero), so one of the energy balances of "
+                        + energyLabels + " is redundant, for example a mixer or heater all of whose flows the"
+                        + " other balances already fix");
+            }
             double[] row = new double[flowCount];
             int[] js = states.get(r);
             for (int k = 0; k < js.length; k++) {
@@ -949,7 +969,7 @@ public final class CycleModel {
             }
             if (basis.add(row)) {
                 chosen.add(r);
-            } else if (sensorRows.get(r) >= 0) {
+            } else if (sensorRows.get(r) >= 0 && !balancesAloneFixEverything) {
                 problems.add("flows are over-determined: " + labels.get(r)
                         + " measures a flow that the balances and the flow sensors before it already fix; redundant"
                         + " flow measurements are not reconciled, so declare only one of them as a state's flow sensor");

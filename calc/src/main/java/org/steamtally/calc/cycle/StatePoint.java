@@ -6,6 +6,7 @@ import org.steamtally.calc.steam.Region1;
 import org.steamtally.calc.steam.Region2;
 import org.steamtally.calc.steam.Region3;
 import org.steamtally.calc.steam.Region5;
+import org.steamtally.calc.steam.Saturation;
 import org.steamtally.calc.steam.Steam;
 import org.steamtally.calc.steam.SteamRangeException;
 
@@ -30,6 +31,13 @@ final class StatePoint {
      * plant pressures; an uncertainty needs two significant digits.
      */
     private static final double RELATIVE_PRESSURE_STEP = 1e-6;
+
+    /**
+     * Saturation pressure at 623.15 K, Pa: below it the saturation line separates regions 1 and 2
+     * only (IAPWS R7-97(2012), Figure 1), and its phases come from those two regions.
+     */
+    private static final double REGION_13_SATURATION_PRESSURE_PA =
+            Saturation.pressure(Steam.REGION_13_TEMPERATURE_K);
 
     double p;
     double T;
@@ -181,6 +189,10 @@ final class StatePoint {
      * @throws IllegalStateException if an iteration does not converge
      */
     void setPH(double pressurePa, double enthalpy) {
+        if (pressurePa >= Steam.TRIPLE_POINT_PRESSURE_PA && pressurePa <= REGION_13_SATURATION_PRESSURE_PA
+                && Double.isFinite(enthalpy) && setPHBelowRegion3(pressurePa, enthalpy)) {
+            return;
+        }
         Region region = Steam.regionPH(pressurePa, enthalpy);
         p = pressurePa;
         h = enthalpy;
@@ -235,6 +247,10 @@ final class StatePoint {
      * @throws IllegalStateException if an iteration does not converge
      */
     void setPS(double pressurePa, double entropy) {
+        if (pressurePa >= Steam.TRIPLE_POINT_PRESSURE_PA && pressurePa <= REGION_13_SATURATION_PRESSURE_PA
+                && Double.isFinite(entropy) && setPSBelowRegion3(pressurePa, entropy)) {
+            return;
+        }
         Region region = Steam.regionPS(pressurePa, entropy);
         p = pressurePa;
         s = entropy;
@@ -279,6 +295,91 @@ final class StatePoint {
                 v = Region5.specificVolume(p, T);
                 break;
         }
+    }
+
+    /**
+     * The common case of {@link #setPH} below the region-1/3 saturation pressure, where only
+     * regions 1, 2 and 4 meet: the saturation enthalpies found for the region choice are reused
+     * for the wet state, and the range checks of the facade are left to the general path, taken
+     * whenever the result would lie outside 273.15 K to 1073.15 K.
+     *
+     * @return false when the general path must decide
+     */
+    private boolean setPHBelowRegion3(double pressurePa, double enthalpy) {
+        double ts = Steam.saturationTemperature(pressurePa);
+        double hL = Region1.enthalpy(pressurePa, ts);
+        double hV = Region2.enthalpy(pressurePa, ts);
+        double t;
+        boolean liquid = enthalpy < hL;
+        if (liquid || enthalpy > hV) {
+            try {
+                t = liquid ? Region1.temperaturePH(pressurePa, enthalpy) : Region2.temperaturePH(pressurePa, enthalpy);
+            } catch (IllegalStateException e) {
+                return false;
+            }
+            if (!(t >= Steam.MIN_TEMPERATURE_K && t <= Steam.MAX_TEMPERATURE_REGION_2_K)) {
+                return false;
+            }
+            p = pressurePa;
+            h = enthalpy;
+            T = t;
+            s = liquid ? Region1.entropy(p, t) : Region2.entropy(p, t);
+            v = liquid ? Region1.specificVolume(p, t) : Region2.specificVolume(p, t);
+            twoPhase = false;
+            x = 0.0;
+        } else {
+            p = pressurePa;
+            h = enthalpy;
+            T = ts;
+            twoPhase = true;
+            x = clippedQuality(enthalpy, hL, hV);
+            double sL = Region1.entropy(p, ts);
+            s = sL + x * (Region2.entropy(p, ts) - sL);
+            double vL = Region1.specificVolume(p, ts);
+            v = vL + x * (Region2.specificVolume(p, ts) - vL);
+        }
+        dhdp = 0.0;
+        dhdT = 0.0;
+        return true;
+    }
+
+    /** As {@link #setPHBelowRegion3}, for (p, s). */
+    private boolean setPSBelowRegion3(double pressurePa, double entropy) {
+        double ts = Steam.saturationTemperature(pressurePa);
+        double sL = Region1.entropy(pressurePa, ts);
+        double sV = Region2.entropy(pressurePa, ts);
+        boolean liquid = entropy < sL;
+        if (liquid || entropy > sV) {
+            double t;
+            try {
+                t = liquid ? Region1.temperaturePS(pressurePa, entropy) : Region2.temperaturePS(pressurePa, entropy);
+            } catch (IllegalStateException e) {
+                return false;
+            }
+            if (!(t >= Steam.MIN_TEMPERATURE_K && t <= Steam.MAX_TEMPERATURE_REGION_2_K)) {
+                return false;
+            }
+            p = pressurePa;
+            s = entropy;
+            T = t;
+            h = liquid ? Region1.enthalpy(p, t) : Region2.enthalpy(p, t);
+            v = liquid ? Region1.specificVolume(p, t) : Region2.specificVolume(p, t);
+            twoPhase = false;
+            x = 0.0;
+        } else {
+            p = pressurePa;
+            s = entropy;
+            T = ts;
+            twoPhase = true;
+            x = clippedQuality(entropy, sL, sV);
+            double hL = Region1.enthalpy(p, ts);
+            h = hL + x * (Region2.enthalpy(p, ts) - hL);
+            double vL = Region1.specificVolume(p, ts);
+            v = vL + x * (Region2.specificVolume(p, ts) - vL);
+        }
+        dhdp = 0.0;
+        dhdT = 0.0;
+        return true;
     }
 
     /** Rounding at the ends of the line is clipped so that x stays within 0 to 1. */

@@ -159,4 +159,25 @@ class CompileProblemsTest {
         assertProblem(problems, "generator \"generator\": \"pump1\" is not a turbine section of unit \"simple\"");
         assertProblem(problems, "component \"generator\": efficiency must lie within 0 (exclusive) and 1, was 1.2");
     }
+
+    @Test
+    void energyBalanceThatLeavesNoFlowFreeIsReported() {
+        // A mixer with a single inlet whose outlet is hotter: its mass and energy balances
+        // together allow only zero flow, whatever flow sensor the loop has.
+        UnitBuilder unit = new UnitBuilder("mix")
+                .saturatedLiquid("condensate", 10e3)
+                .measured("pumped", 10.5e6, 320.0)
+                .measured("feedwater", 10.5e6, 330.0)
+                .measured("main_steam", 10e6, 773.15)
+                .flow("main_steam", 50.0)
+                .wet("exhaust", 10e3, 0.88)
+                .component(new Component.SteamGenerator("boiler", "feedwater", "main_steam", Optional.empty()))
+                .component(new Component.TurbineSection("turbine", "main_steam", "exhaust", List.of(), Optional.empty()))
+                .component(new Component.Condenser("condenser", List.of("exhaust"), "condensate", Optional.empty()))
+                .component(new Component.Pump("pump1", "condensate", "pumped", Optional.empty(), Optional.empty()))
+                .component(new Component.Mixer("mixer", List.of("pumped"), "feedwater"));
+        List<String> problems = problems(unit);
+        assertTrue(problems.stream().anyMatch(p -> p.startsWith("flows are over-determined: the mass and energy"
+                + " balances alone leave no flow free") && p.contains("[\"mixer\"]")), String.join("\n", problems));
+    }
 }
