@@ -80,7 +80,7 @@ import org.steamtally.calc.steam.SteamRangeException;
  * first-order propagation (GUM, ISO/IEC Guide 98-3, eq. 10, inputs uncorrelated) over every sensor
  * and declared constant it depends on. Sensitivities are exact derivatives of the model
  * (forward-mode, through the linear solve of the flows and the energy-balance states), with
- * (∂h/∂T)_p = cp from IF97 and (∂h/∂p)_T by a central difference on the IF97 equation of the
+ * (∂h/∂T)_p = cp from IF97 and (∂h/∂p)_T by a forward difference on the IF97 equation of the
  * state's region.
  *
  * <h2>Bad values</h2>
