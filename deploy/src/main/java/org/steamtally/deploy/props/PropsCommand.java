@@ -1,18 +1,12 @@
 package org.steamtally.deploy.props;
 
-import java.io.FilterInputStream;
-import java.io.FilterWriter;
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.PrintWriter;
 import java.io.Writer;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.AccessDeniedException;
-import java.nio.file.Files;
-import java.nio.file.InvalidPathException;
-import java.nio.file.NoSuchFileException;
-import java.nio.file.Path;
+import java.util.List;
 import java.util.concurrent.Callable;
+import org.steamtally.deploy.CommandFiles;
 import org.steamtally.deploy.Launcher;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
@@ -49,7 +43,7 @@ import picocli.CommandLine.Spec;
 public final class PropsCommand implements Callable<Integer> {
 
     /** What {@code --in} and {@code --out} take to mean the standard streams. */
-    private static final String STANDARD_STREAM = "-";
+    private static final String STANDARD_STREAM = CommandFiles.STANDARD_STREAM;
 
     @ParentCommand
     private Launcher launcher;
@@ -94,44 +88,23 @@ public final class PropsCommand implements Callable<Integer> {
         } catch (PropsFileException e) {
             return unusable(err, e.getMessage());
         } catch (IOException e) {
-            return unusable(err, "I/O error: " + reason(e));
+            return unusable(err, "I/O error: " + CommandFiles.reason(e));
         }
     }
 
     private InputStream openInput() throws PropsFileException {
-        if (STANDARD_STREAM.equals(in)) {
-            return new FilterInputStream(launcher.standardInput()) {
-                @Override
-                public void close() {
-                    // Standard input belongs to the process, not to this command.
-                }
-            };
-        }
         try {
-            return Files.newInputStream(Path.of(in));
-        } catch (IOException | InvalidPathException e) {
-            throw new PropsFileException("cannot read input file '" + in + "': " + reason(e));
+            return CommandFiles.openInput(in, launcher.standardInput());
+        } catch (CommandFiles.UnusableFileException e) {
+            throw new PropsFileException(e.getMessage());
         }
     }
 
     private Writer openOutput(PrintWriter stdout) throws PropsFileException {
-        if (STANDARD_STREAM.equals(out)) {
-            return new FilterWriter(stdout) {
-                @Override
-                public void close() {
-                    // Standard output belongs to the process; it is flushed, not closed.
-                }
-            };
-        }
         try {
-            Path outPath = Path.of(out);
-            if (!STANDARD_STREAM.equals(in) && Files.exists(outPath) && Files.isSameFile(Path.of(in), outPath)) {
-                throw new PropsFileException("--out names the input file '" + in
-                        + "'; it would be emptied before it is read");
-            }
-            return Files.newBufferedWriter(outPath, StandardCharsets.UTF_8);
-        } catch (IOException | InvalidPathException e) {
-            throw new PropsFileException("cannot write output file '" + out + "': " + reason(e));
+            return CommandFiles.openOutput(out, stdout, List.of(in));
+        } catch (CommandFiles.UnusableFileException e) {
+            throw new PropsFileException(e.getMessage());
         }
     }
 
@@ -141,14 +114,4 @@ public final class PropsCommand implements Callable<Integer> {
         return Launcher.EXIT_USAGE;
     }
 
-    /** The JDK's file exceptions carry only the path as their message; say what went wrong. */
-    private static String reason(Exception e) {
-        if (e instanceof NoSuchFileException) {
-            return "no such file";
-        }
-        if (e instanceof AccessDeniedException) {
-            return "permission denied";
-        }
-        return e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
-    }
 }

@@ -1,29 +1,23 @@
 package org.steamtally.deploy.replay;
 
 import java.io.BufferedReader;
-import java.io.FilterInputStream;
-import java.io.FilterWriter;
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.InputStreamReader;
 import java.io.PrintWriter;
 import java.io.Writer;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.AccessDeniedException;
-import java.nio.file.Files;
-import java.nio.file.InvalidPathException;
-import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.time.Duration;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
-import java.util.Optional;
 import java.util.concurrent.Callable;
 import org.steamtally.calc.plant.PlantDescription;
 import org.steamtally.calc.plant.UnitDescription;
 import org.steamtally.dashboard.json.ResultCsvWriter;
 import org.steamtally.dashboard.json.ResultJsonLinesWriter;
+import org.steamtally.deploy.CommandFiles;
 import org.steamtally.deploy.Launcher;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
@@ -60,7 +54,7 @@ import picocli.CommandLine.Spec;
 public final class ReplayCommand implements Callable<Integer> {
 
     /** What {@code --in} and {@code --out} take to mean the standard streams. */
-    private static final String STANDARD_STREAM = "-";
+    private static final String STANDARD_STREAM = CommandFiles.STANDARD_STREAM;
 
     /** Output formats of {@code --format}. */
     public enum Format {
@@ -152,7 +146,7 @@ public final class ReplayCommand implements Callable<Integer> {
         } catch (ReplayInputException e) {
             return unusable(err, e.getMessage());
         } catch (IOException e) {
-            return unusable(err, "I/O error: " + reason(e));
+            return unusable(err, "I/O error: " + CommandFiles.reason(e));
         }
     }
 
@@ -180,7 +174,7 @@ public final class ReplayCommand implements Callable<Integer> {
         try {
             return Objects.requireNonNull(seams.plantSource().load(config), "plant description");
         } catch (Exception e) {
-            throw new ReplayInputException("cannot use plant description '" + config + "': " + reason(e));
+            throw new ReplayInputException("cannot use plant description '" + config + "': " + CommandFiles.reason(e));
         }
     }
 
@@ -209,42 +203,19 @@ public final class ReplayCommand implements Callable<Integer> {
     }
 
     private BufferedReader openInput() throws ReplayInputException {
-        if (STANDARD_STREAM.equals(in)) {
-            InputStream stdin = launcher == null ? System.in : launcher.standardInput();
-            // Standard input belongs to the process: closing this reader must not close it.
-            return new BufferedReader(new InputStreamReader(new FilterInputStream(stdin) {
-                @Override
-                public void close() {
-                    // Left open on purpose.
-                }
-            }, StandardCharsets.UTF_8));
-        }
+        InputStream stdin = launcher == null ? System.in : launcher.standardInput();
         try {
-            return Files.newBufferedReader(Path.of(in), StandardCharsets.UTF_8);
-        } catch (IOException | InvalidPathException e) {
-            throw new ReplayInputException("cannot read input file '" + in + "': " + reason(e));
+            return new BufferedReader(new InputStreamReader(CommandFiles.openInput(in, stdin), StandardCharsets.UTF_8));
+        } catch (CommandFiles.UnusableFileException e) {
+            throw new ReplayInputException(e.getMessage());
         }
     }
 
     private Writer openOutput(PrintWriter stdout) throws ReplayInputException {
-        if (STANDARD_STREAM.equals(out)) {
-            return new FilterWriter(stdout) {
-                @Override
-                public void close() {
-                    // Standard output belongs to the process; it is flushed, not closed.
-                }
-            };
-        }
         try {
-            Path outPath = Path.of(out);
-            if (Files.exists(outPath) && ((!STANDARD_STREAM.equals(in) && Files.isSameFile(Path.of(in), outPath))
-                    || (Files.exists(config) && Files.isSameFile(config, outPath)))) {
-                throw new ReplayInputException("--out names an input file '" + out
-                        + "'; it would be emptied before it is read");
-            }
-            return Files.newBufferedWriter(outPath, StandardCharsets.UTF_8);
-        } catch (IOException | InvalidPathException e) {
-            throw new ReplayInputException("cannot write output file '" + out + "': " + reason(e));
+            return CommandFiles.openOutput(out, stdout, List.of(in, config.toString()));
+        } catch (CommandFiles.UnusableFileException e) {
+            throw new ReplayInputException(e.getMessage());
         }
     }
 
@@ -254,14 +225,4 @@ public final class ReplayCommand implements Callable<Integer> {
         return Launcher.EXIT_USAGE;
     }
 
-    /** The JDK's file exceptions carry only the path as their message; say what went wrong. */
-    private static String reason(Exception e) {
-        if (e instanceof NoSuchFileException) {
-            return "no such file";
-        }
-        if (e instanceof AccessDeniedException) {
-            return "permission denied";
-        }
-        return e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
-    }
 }
