@@ -6,6 +6,7 @@ import org.steamtally.calc.steam.Region1;
 import org.steamtally.calc.steam.Region2;
 import org.steamtally.calc.steam.Region3;
 import org.steamtally.calc.steam.Region5;
+import org.steamtally.calc.steam.SaturationLine;
 import org.steamtally.calc.steam.Saturation;
 import org.steamtally.calc.steam.Steam;
 import org.steamtally.calc.steam.SteamRangeException;
@@ -160,24 +161,24 @@ final class StatePoint {
         double tsStep = Steam.saturationTemperature(pStep);
         // A saturated liquid or vapour, the common fixes, needs only its own side of the line.
         if (quality == 0.0) {
-            h = liquidEnthalpy(p, ts);
-            s = liquidEntropy(p, ts);
-            v = liquidVolume(p, ts);
-            dhdp = (liquidEnthalpy(pStep, tsStep) - h) / dp;
+            h = SaturationLine.liquidEnthalpy(p, ts);
+            s = SaturationLine.liquidEntropy(p, ts);
+            v = SaturationLine.liquidVolume(p, ts);
+            dhdp = (SaturationLine.liquidEnthalpy(pStep, tsStep) - h) / dp;
         } else if (quality == 1.0) {
-            h = vapourEnthalpy(p, ts);
-            s = vapourEntropy(p, ts);
-            v = vapourVolume(p, ts);
-            dhdp = (vapourEnthalpy(pStep, tsStep) - h) / dp;
+            h = SaturationLine.vapourEnthalpy(p, ts);
+            s = SaturationLine.vapourEntropy(p, ts);
+            v = SaturationLine.vapourVolume(p, ts);
+            dhdp = (SaturationLine.vapourEnthalpy(pStep, tsStep) - h) / dp;
         } else {
-            double hL = liquidEnthalpy(p, ts);
-            h = hL + quality * (vapourEnthalpy(p, ts) - hL);
-            double sL = liquidEntropy(p, ts);
-            s = sL + quality * (vapourEntropy(p, ts) - sL);
-            double vL = liquidVolume(p, ts);
-            v = vL + quality * (vapourVolume(p, ts) - vL);
-            double hLStep = liquidEnthalpy(pStep, tsStep);
-            dhdp = (hLStep + quality * (vapourEnthalpy(pStep, tsStep) - hLStep) - h) / dp;
+            double hL = SaturationLine.liquidEnthalpy(p, ts);
+            h = hL + quality * (SaturationLine.vapourEnthalpy(p, ts) - hL);
+            double sL = SaturationLine.liquidEntropy(p, ts);
+            s = sL + quality * (SaturationLine.vapourEntropy(p, ts) - sL);
+            double vL = SaturationLine.liquidVolume(p, ts);
+            v = vL + quality * (SaturationLine.vapourVolume(p, ts) - vL);
+            double hLStep = SaturationLine.liquidEnthalpy(pStep, tsStep);
+            dhdp = (hLStep + quality * (SaturationLine.vapourEnthalpy(pStep, tsStep) - hLStep) - h) / dp;
         }
     }
 
@@ -220,15 +221,15 @@ final class StatePoint {
             }
             case REGION_4: {
                 double ts = Steam.saturationTemperature(p);
-                double hL = liquidEnthalpy(p, ts);
-                double hV = vapourEnthalpy(p, ts);
+                double hL = SaturationLine.liquidEnthalpy(p, ts);
+                double hV = SaturationLine.vapourEnthalpy(p, ts);
                 T = ts;
                 twoPhase = true;
-                x = clippedQuality(h, hL, hV);
-                double sL = liquidEntropy(p, ts);
-                s = sL + x * (vapourEntropy(p, ts) - sL);
-                double vL = liquidVolume(p, ts);
-                v = vL + x * (vapourVolume(p, ts) - vL);
+                x = SaturationLine.quality(h, hL, hV);
+                double sL = SaturationLine.liquidEntropy(p, ts);
+                s = sL + x * (SaturationLine.vapourEntropy(p, ts) - sL);
+                double vL = SaturationLine.liquidVolume(p, ts);
+                v = vL + x * (SaturationLine.vapourVolume(p, ts) - vL);
                 break;
             }
             default:
@@ -278,15 +279,15 @@ final class StatePoint {
             }
             case REGION_4: {
                 double ts = Steam.saturationTemperature(p);
-                double sL = liquidEntropy(p, ts);
-                double sV = vapourEntropy(p, ts);
+                double sL = SaturationLine.liquidEntropy(p, ts);
+                double sV = SaturationLine.vapourEntropy(p, ts);
                 T = ts;
                 twoPhase = true;
-                x = clippedQuality(s, sL, sV);
-                double hL = liquidEnthalpy(p, ts);
-                h = hL + x * (vapourEnthalpy(p, ts) - hL);
-                double vL = liquidVolume(p, ts);
-                v = vL + x * (vapourVolume(p, ts) - vL);
+                x = SaturationLine.quality(s, sL, sV);
+                double hL = SaturationLine.liquidEnthalpy(p, ts);
+                h = hL + x * (SaturationLine.vapourEnthalpy(p, ts) - hL);
+                double vL = SaturationLine.liquidVolume(p, ts);
+                v = vL + x * (SaturationLine.vapourVolume(p, ts) - vL);
                 break;
             }
             default:
@@ -332,7 +333,7 @@ final class StatePoint {
             h = enthalpy;
             T = ts;
             twoPhase = true;
-            x = clippedQuality(enthalpy, hL, hV);
+            x = SaturationLine.quality(enthalpy, hL, hV);
             double sL = Region1.entropy(p, ts);
             s = sL + x * (Region2.entropy(p, ts) - sL);
             double vL = Region1.specificVolume(p, ts);
@@ -371,7 +372,7 @@ final class StatePoint {
             s = entropy;
             T = ts;
             twoPhase = true;
-            x = clippedQuality(entropy, sL, sV);
+            x = SaturationLine.quality(entropy, sL, sV);
             double hL = Region1.enthalpy(p, ts);
             h = hL + x * (Region2.enthalpy(p, ts) - hL);
             double vL = Region1.specificVolume(p, ts);
@@ -380,41 +381,5 @@ final class StatePoint {
         dhdp = 0.0;
         dhdT = 0.0;
         return true;
-    }
-
-    /** Rounding at the ends of the line is clipped so that x stays within 0 to 1. */
-    private static double clippedQuality(double value, double liquid, double vapour) {
-        if (vapour <= liquid) {
-            return 0.0;
-        }
-        return Math.min(1.0, Math.max(0.0, (value - liquid) / (vapour - liquid)));
-    }
-
-    private static boolean belowRegion3(double T) {
-        return T <= Steam.REGION_13_TEMPERATURE_K;
-    }
-
-    private static double liquidEnthalpy(double p, double T) {
-        return belowRegion3(T) ? Region1.enthalpy(p, T) : Region3.enthalpy(Region3.saturatedLiquidDensity(T, p), T);
-    }
-
-    private static double vapourEnthalpy(double p, double T) {
-        return belowRegion3(T) ? Region2.enthalpy(p, T) : Region3.enthalpy(Region3.saturatedVapourDensity(T, p), T);
-    }
-
-    private static double liquidEntropy(double p, double T) {
-        return belowRegion3(T) ? Region1.entropy(p, T) : Region3.entropy(Region3.saturatedLiquidDensity(T, p), T);
-    }
-
-    private static double vapourEntropy(double p, double T) {
-        return belowRegion3(T) ? Region2.entropy(p, T) : Region3.entropy(Region3.saturatedVapourDensity(T, p), T);
-    }
-
-    private static double liquidVolume(double p, double T) {
-        return belowRegion3(T) ? Region1.specificVolume(p, T) : 1.0 / Region3.saturatedLiquidDensity(T, p);
-    }
-
-    private static double vapourVolume(double p, double T) {
-        return belowRegion3(T) ? Region2.specificVolume(p, T) : 1.0 / Region3.saturatedVapourDensity(T, p);
     }
 }

@@ -195,7 +195,7 @@ final class HsSolver {
         double p = Saturation.pressure(T);
         double hL = SaturationLine.liquidEnthalpy(p, T);
         double hV = SaturationLine.vapourEnthalpy(p, T);
-        double x = hV > hL ? Math.min(1.0, Math.max(0.0, (h - hL) / (hV - hL))) : 0.0;
+        double x = SaturationLine.quality(h, hL, hV);
         return Steam.wetState(p, T, x);
     }
 

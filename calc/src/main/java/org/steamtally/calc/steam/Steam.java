@@ -293,7 +293,7 @@ public final class Steam {
             }
             double hV = Region2.enthalpy(p, Ts);
             if (h <= hV) {
-                return wetState(p, Ts, quality(h, hL, hV), hL, hV, Region1.entropy(p, Ts), Region2.entropy(p, Ts));
+                return wetState(p, Ts, SaturationLine.quality(h, hL, hV), hL, hV, Region1.entropy(p, Ts), Region2.entropy(p, Ts));
             }
         }
         switch (regionOfValidPH(p, h)) {
@@ -304,7 +304,7 @@ public final class Steam {
                 double Ts = Saturation.temperature(p);
                 double hL = SaturationLine.liquidEnthalpy(p, Ts);
                 double hV = SaturationLine.vapourEnthalpy(p, Ts);
-                return wetState(p, Ts, quality(h, hL, hV), hL, hV,
+                return wetState(p, Ts, SaturationLine.quality(h, hL, hV), hL, hV,
                         SaturationLine.liquidEntropy(p, Ts), SaturationLine.vapourEntropy(p, Ts));
             }
             default: return singlePhase(Region.REGION_5, p, Region5.temperaturePH(p, h));
@@ -396,7 +396,7 @@ public final class Steam {
             }
             double sV = Region2.entropy(p, Ts);
             if (s <= sV) {
-                return wetState(p, Ts, quality(s, sL, sV), Region1.enthalpy(p, Ts), Region2.enthalpy(p, Ts), sL, sV);
+                return wetState(p, Ts, SaturationLine.quality(s, sL, sV), Region1.enthalpy(p, Ts), Region2.enthalpy(p, Ts), sL, sV);
             }
         }
         switch (regionOfValidPS(p, s)) {
@@ -407,23 +407,11 @@ public final class Steam {
                 double Ts = Saturation.temperature(p);
                 double sL = SaturationLine.liquidEntropy(p, Ts);
                 double sV = SaturationLine.vapourEntropy(p, Ts);
-                return wetState(p, Ts, quality(s, sL, sV), SaturationLine.liquidEnthalpy(p, Ts),
+                return wetState(p, Ts, SaturationLine.quality(s, sL, sV), SaturationLine.liquidEnthalpy(p, Ts),
                         SaturationLine.vapourEnthalpy(p, Ts), sL, sV);
             }
             default: return singlePhase(Region.REGION_5, p, Region5.temperaturePS(p, s));
         }
-    }
-
-    /**
-     * Vapour quality from a value between its saturated-liquid and saturated-vapour values. At the
-     * critical point the two coincide and the state is taken as saturated liquid; rounding at
-     * the ends is clipped so that x stays within 0 to 1.
-     */
-    private static double quality(double value, double liquid, double vapour) {
-        if (vapour <= liquid) {
-            return 0.0;
-        }
-        return Math.min(1.0, Math.max(0.0, (value - liquid) / (vapour - liquid)));
     }
 
     // ---------------------------------------------------------------- (h, s)
