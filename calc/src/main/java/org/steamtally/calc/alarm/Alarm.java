@@ -123,7 +123,7 @@ final class Alarm {
     AlarmRecord record(Optional<String> suppression) {
         return new AlarmRecord(id, kind, definition.priority(), state, stateSince, condition, pending,
                 Instant.ofEpochMilli(pendingSinceMs), valueOrEmpty(), limitOrEmpty(), AlarmText.of(this),
-                Optional.ofNullable(shelf), Optional.ofNullable(removal),
+                Optional.ofNullable(suspect), Optional.ofNullable(shelf), Optional.ofNullable(removal),
                 state.followsCondition() ? Optional.empty() : suppression);
     }
 }

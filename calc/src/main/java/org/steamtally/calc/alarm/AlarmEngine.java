@@ -702,6 +702,7 @@ public final class AlarmEngine {
             a.hasLimit = r.limit().isPresent();
             a.limit = r.limit().orElse(0.0);
             a.restoredText = r.text();
+            a.suspect = r.suspect().orElse(null);
             if (r.suppression().isPresent()) {
                 suppressed.putIfAbsent(a.kind, r.suppression().get());
             }

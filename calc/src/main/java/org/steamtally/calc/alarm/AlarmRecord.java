@@ -21,6 +21,8 @@ import java.util.OptionalDouble;
  * @param value            the last value seen (see {@link AlarmEvent#value()}); empty when none
  * @param limit            the limit it was compared with; empty when none
  * @param text             one sentence on what the alarm is about, as of the last value
+ * @param suspect          for a suspect-sensor alarm, the reconciliation's last word on the sensor
+ *                         (kept for the text after a restore); empty for other kinds and before any
  * @param shelf            the shelf, present exactly when the state is {@link AlarmState#SHELVED}
  * @param removal          the removal, present exactly when the state is {@link AlarmState#OUT_OF_SERVICE}
  * @param suppression      why its kind is suppressed by design, when it is; always present in
@@ -38,6 +40,7 @@ public record AlarmRecord(
         OptionalDouble value,
         OptionalDouble limit,
         String text,
+        Optional<SuspectInput> suspect,
         Optional<Shelf> shelf,
         Optional<ServiceRemoval> removal,
         Optional<String> suppression) {
@@ -52,12 +55,17 @@ public record AlarmRecord(
         Objects.requireNonNull(value, "value");
         Objects.requireNonNull(limit, "limit");
         Objects.requireNonNull(text, "text");
+        Objects.requireNonNull(suspect, "suspect");
         Objects.requireNonNull(shelf, "shelf");
         Objects.requireNonNull(removal, "removal");
         Objects.requireNonNull(suppression, "suppression");
         if (AlarmKind.ofId(id).orElse(null) != kind) {
             throw new IllegalArgumentException("alarm id \"" + id + "\" does not belong to kind " + kind.key()
                     + " (its ids start with \"" + kind.idPrefix() + "\")");
+        }
+        if (suspect.isPresent() && (kind != AlarmKind.SUSPECT_SENSOR || !id.endsWith(":" + suspect.get().sensorId()))) {
+            throw new IllegalArgumentException("alarm " + id + " carries the suspect input of sensor "
+                    + suspect.get().sensorId() + ": only a suspect alarm carries one, of its own sensor");
         }
         if ((state == AlarmState.SHELVED) != shelf.isPresent()) {
             throw new IllegalArgumentException("alarm " + id + " in state " + state.key()

@@ -16,11 +16,11 @@ final class AlarmText {
         }
     }
 
-    /** A number for a person: four significant digits, plain notation within 0.01 to 100,000. */
+    /** A number for a person: five significant digits, plain notation within 0.01 to 100,000. */
     static String number(double v) {
         double a = Math.abs(v);
         if (a == 0.0 || a >= 0.01 && a < 1e5) {
-            String s = String.format(Locale.ROOT, "%.4g", v);
+            String s = String.format(Locale.ROOT, "%.5g", v);
             if (s.contains("e")) {
                 return s;
             }
