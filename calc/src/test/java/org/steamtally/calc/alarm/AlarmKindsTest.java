@@ -122,6 +122,15 @@ class AlarmKindsTest {
     }
 
     @Test
+    void goodValueThatIsNotANumberRaisesTheRangeAlarmWithoutAValue() {
+        List<AlarmEvent> events = minute(t -> plant.snapshot(t, "p_feedwater", Double.NaN));
+        AlarmEvent range = raised(events, "range:p_feedwater");
+        assertTrue(range.value().isEmpty());
+        assertEquals("sensor p_feedwater reads a value that is not a number, plausible range 0 to 4.000e7 Pa",
+                range.text());
+    }
+
+    @Test
     void suspectSensorNamesItsBiasUncertaintyAndTheSensorsItCannotBeToldApartFrom() {
         ReconciliationInput failing = new ReconciliationInput(31.2, 12.59, 6,
                 List.of(new SuspectInput("m_cw", 62.0, 11.5, 4.8, List.of("T_cw_out"))));
