@@ -22,7 +22,8 @@ import java.util.OptionalDouble;
  * @param limit            the limit it was compared with; empty when none
  * @param text             one sentence on what the alarm is about, as of the last value
  * @param suspect          for a suspect-sensor alarm, the reconciliation's last word on the sensor
- *                         (kept for the text after a restore); empty for other kinds and before any
+ *                         (kept for the text after a restore); empty for other kinds and before
+ *                         the sensor was first named
  * @param shelf            the shelf, present exactly when the state is {@link AlarmState#SHELVED}
  * @param removal          the removal, present exactly when the state is {@link AlarmState#OUT_OF_SERVICE}
  * @param suppression      why its kind is suppressed by design, when it is; always present in

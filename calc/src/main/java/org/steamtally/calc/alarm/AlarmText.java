@@ -30,7 +30,11 @@ final class AlarmText {
             }
             return s;
         }
-        return String.format(Locale.ROOT, "%.3e", v).replace("e+0", "e").replace("e+", "e").replace("e-0", "e-");
+        String s = String.format(Locale.ROOT, "%.3e", v);
+        int e = s.indexOf('e');
+        String mantissa = s.substring(0, e).replaceAll("\\.?0+$", "");
+        int exponent = Integer.parseInt(s.substring(e + 1));
+        return mantissa + "e" + exponent;
     }
 
     private static String unitOf(Alarm a) {
