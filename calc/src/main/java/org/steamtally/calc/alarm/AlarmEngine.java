@@ -168,24 +168,25 @@ public final class AlarmEngine {
             suspects.put(subject, alarm);
             suspectList.add(alarm);
         }
-        String suppression = suppressed.get(kind);
-        if (suppression != null) {
-            transition(alarm, AlarmState.SUPPRESSED_BY_DESIGN, AlarmStimulus.SUPPRESS, now, null, suppression);
+        if (suppressed.containsKey(kind)) {
+            // Its first state, not a transition: an alarm of a suppressed kind begins suppressed.
+            alarm.state = AlarmState.SUPPRESSED_BY_DESIGN;
         }
         return alarm;
     }
 
     /**
      * The alarm of an id, created when the id names an alarm this unit can have but has not needed
-     * yet (a closure or a suspect not seen so far); null when it cannot exist or is disabled.
+     * yet: a suspect of one of its sensors, or (when restoring, since closure ids come from the
+     * cycle model) a closure; null when it cannot exist or is disabled.
      */
-    private Alarm find(String alarmId, Instant now) {
+    private Alarm find(String alarmId, Instant now, boolean newClosure) {
         Alarm alarm = byId.get(alarmId);
         if (alarm != null) {
             return alarm;
         }
         AlarmKind kind = AlarmKind.ofId(alarmId).orElse(null);
-        if (kind == AlarmKind.CLOSURE) {
+        if (kind == AlarmKind.CLOSURE && newClosure) {
             return create(kind, alarmId.substring(kind.idPrefix().length()), false, now);
         }
         if (kind == AlarmKind.SUSPECT_SENSOR) {
@@ -197,11 +198,12 @@ public final class AlarmEngine {
 
     private Alarm require(String alarmId, Instant now) {
         Objects.requireNonNull(alarmId, "alarmId");
-        Alarm alarm = find(alarmId, now);
+        Alarm alarm = find(alarmId, now, false);
         if (alarm == null) {
             throw new AlarmActionException("unit " + unitId + " has no alarm \"" + alarmId + "\" (ids are "
                     + "closure:<closure id>, reconciliation:global, suspect:<sensor>, stale:<sensor>, "
-                    + "range:<sensor>, invalid:state:<state>, invalid:component:<component>; a disabled alarm has none)");
+                    + "range:<sensor>, invalid:state:<state>, invalid:component:<component>; a closure's alarm exists"
+                + " once the closure has been computed; a disabled alarm has none)");
         }
         return alarm;
     }
@@ -684,7 +686,7 @@ public final class AlarmEngine {
         Instant now = clock.instant();
         events = null;
         for (AlarmRecord r : saved.alarms()) {
-            Alarm a = find(r.id(), now);
+            Alarm a = find(r.id(), now, true);
             if (a == null) {
                 leftOut.add("alarm " + r.id() + ": unit " + unitId + " has no such alarm under the present plant"
                         + " description and settings");

@@ -16,6 +16,11 @@ class ShelvingAndServiceTest {
     private final AlarmEngine engine = new AlarmEngine(OneClosureUnit.unit(), OneClosureUnit.immediate(), clock);
     private static final String ID = OneClosureUnit.CLOSURE;
 
+    ShelvingAndServiceTest() {
+        // The closure alarm exists once the closure has been computed.
+        OneClosureUnit.feed(engine, clock, 0.0);
+    }
+
     private AlarmRecord alarm() {
         return engine.alarm(ID).orElseThrow();
     }
@@ -79,7 +84,6 @@ class ShelvingAndServiceTest {
 
     @Test
     void shelfLongerThanTheMaximumIsRefusedNamingTheMaximum() {
-        OneClosureUnit.feed(engine, clock, 0.0);
         AlarmActionException e = assertThrows(AlarmActionException.class,
                 () -> engine.shelve(ID, Duration.ofHours(9), "op1", "long job"));
         assertTrue(e.getMessage().contains("PT8H") && e.getMessage().contains("PT9H"), e.getMessage());
@@ -96,6 +100,28 @@ class ShelvingAndServiceTest {
                 () -> engine.shelve(ID, Duration.ofHours(1), "", "why"));
         assertTrue(noUser.getMessage().contains("user"), noUser.getMessage());
         assertThrows(AlarmActionException.class, () -> engine.acknowledge(ID, null));
+    }
+
+    @Test
+    void closureNeverComputedHasNoAlarmToActOn() {
+        AlarmActionException e = assertThrows(AlarmActionException.class,
+                () -> engine.shelve("closure:boiler+fuel", Duration.ofHours(1), "op1", "typo"));
+        assertTrue(e.getMessage().contains("once the closure has been computed"), e.getMessage());
+        assertTrue(engine.alarm("closure:boiler+fuel").isEmpty());
+    }
+
+    @Test
+    void suspectOfAKnownSensorCanBeTakenOutOfServiceBeforeItIsEverNamed() {
+        AlarmEvent e = engine.removeFromService("suspect:PT-1", "tech1", "transmitter being replaced");
+        assertEquals(AlarmState.NORMAL, e.from());
+        assertEquals(AlarmState.OUT_OF_SERVICE, engine.alarm("suspect:PT-1").orElseThrow().state());
+    }
+
+    @Test
+    void alarmFirstSeenWhileItsKindIsSuppressedBeginsSuppressed() {
+        engine.suppress(AlarmKind.SUSPECT_SENSOR, "unit off line");
+        AlarmEvent e = engine.shelve("suspect:PT-1", Duration.ofHours(1), "op1", "known");
+        assertEquals(AlarmState.SUPPRESSED_BY_DESIGN, e.from());
     }
 
     @Test
