@@ -58,8 +58,9 @@ import org.yaml.snakeyaml.nodes.SequenceNode;
  * problems are collected and thrown together.
  *
  * <p>Top-level sections {@code alarms} and {@code collector} are reserved for the alarm and
- * collector settings that live in the same file; this loader accepts them unread. Any other unknown
- * key, at any level, is a problem.
+ * collector settings that live in the same file; this loader accepts them unread, except that the
+ * problems {@link AlarmSettingsLoader} finds in {@code alarms} are reported with its own. Any other
+ * unknown key, at any level, is a problem.
  */
 public final class PlantDescriptionLoader {
 
@@ -155,6 +156,7 @@ public final class PlantDescriptionLoader {
                 throw failure();
             }
             PlantDescription plant = readPlant(root);
+            problems.addAll(AlarmSettingsLoader.problems(file, root));
             if (plant != null) {
                 for (PlantProblem p : PlantValidator.validate(plant)) {
                     addValidatorProblem(p);

@@ -1,0 +1,108 @@
+package org.steamtally.calc.alarm;
+
+import java.time.Duration;
+import java.util.EnumMap;
+import java.util.LinkedHashMap;
+import java.util.Map;
+import java.util.Objects;
+
+/**
+ * The alarm settings of a plant: one definition per kind, optional definitions for single alarms by
+ * id, and the longest an operator may shelve an alarm. Read from the {@code alarms} section of the
+ * plant description; {@link #DEFAULTS} where the section is absent. docs/ALARMS.md gives the reasons
+ * for each default.
+ *
+ * @param kinds     one definition for every {@link AlarmKind}
+ * @param overrides definitions for single alarms, by alarm id (e.g. {@code "closure:cycle"}); each
+ *                  checked against the kind its id names
+ * @param maxShelve the longest shelf an operator may set, &gt; 0
+ */
+public record AlarmSettings(Map<AlarmKind, AlarmDefinition> kinds, Map<String, AlarmDefinition> overrides,
+                            Duration maxShelve) {
+
+    /**
+     * Closure: raised at |z| ≥ 3, cleared below 2.5. For a normal residual whose uncertainty is
+     * right, P(|z| ≥ 3) = 0.27 % per snapshot (two-sided normal tail, 2(1 − Φ(3))); the on-delay of
+     * 10 s asks for ten snapshots in a row at 1 Hz, so a single noisy one, or the short mismatch of
+     * a load step, raises nothing.
+     */
+    public static final AlarmDefinition CLOSURE_DEFAULT = new AlarmDefinition(true, AlarmPriority.MEDIUM,
+            Duration.ofSeconds(10), Duration.ofSeconds(30), 3.0, 0.5);
+
+    /** Global test: raised at the χ² quantile itself (factor 1.0), cleared below 0.9 of it. */
+    public static final AlarmDefinition GLOBAL_TEST_DEFAULT = new AlarmDefinition(true, AlarmPriority.MEDIUM,
+            Duration.ofSeconds(10), Duration.ofSeconds(30), 1.0, 0.1);
+
+    /**
+     * Suspect sensor: |test value| ≥ 1.96, the two-sided 95 % normal quantile (the individual test's
+     * default level), cleared below 1.71; the off-delay of 60 s keeps a sensor whose test value
+     * hovers near the quantile from leaving and re-entering the suspect list as separate alarms.
+     */
+    public static final AlarmDefinition SUSPECT_DEFAULT = new AlarmDefinition(true, AlarmPriority.HIGH,
+            Duration.ofSeconds(10), Duration.ofSeconds(60), 1.96, 0.25);
+
+    /** Stale sensor: the max age already allows for late messages; 5 s more rides out one late batch. */
+    public static final AlarmDefinition STALE_DEFAULT = new AlarmDefinition(true, AlarmPriority.LOW,
+            Duration.ofSeconds(5), Duration.ofSeconds(5), 0.0, 0.0);
+
+    /** Out of range: deadband 2 % of the range's span, the value ISA-18.2 practice suggests for pressures. */
+    public static final AlarmDefinition OUT_OF_RANGE_DEFAULT = new AlarmDefinition(true, AlarmPriority.MEDIUM,
+            Duration.ofSeconds(5), Duration.ofSeconds(10), 0.0, 0.02);
+
+    /** Calculation invalid: low, because the stale or out-of-range alarm of its sensor says the cause. */
+    public static final AlarmDefinition CALCULATION_INVALID_DEFAULT = new AlarmDefinition(true, AlarmPriority.LOW,
+            Duration.ofSeconds(10), Duration.ofSeconds(10), 0.0, 0.0);
+
+    /** The longest shelf by default: one shift, so that the next crew sees what was set aside. */
+    public static final Duration MAX_SHELVE_DEFAULT = Duration.ofHours(8);
+
+    /** The settings of a plant description without an {@code alarms} section. */
+    public static final AlarmSettings DEFAULTS = new AlarmSettings(defaultKinds(), Map.of(), MAX_SHELVE_DEFAULT);
+
+    public AlarmSettings {
+        EnumMap<AlarmKind, AlarmDefinition> all = new EnumMap<>(AlarmKind.class);
+        all.putAll(kinds);
+        for (AlarmKind kind : AlarmKind.values()) {
+            AlarmDefinition d = all.get(kind);
+            if (d == null) {
+                throw new IllegalArgumentException("alarm settings lack a definition for " + kind.key());
+            }
+            d.checkFor(kind, kind.key());
+        }
+        kinds = java.util.Collections.unmodifiableMap(all);
+        Map<String, AlarmDefinition> byId = new LinkedHashMap<>(overrides);
+        byId.forEach((id, d) -> {
+            AlarmKind kind = AlarmKind.ofId(id).orElseThrow(() -> new IllegalArgumentException("alarm id \"" + id
+                    + "\" does not start with a kind's prefix (closure:, reconciliation:, suspect:, stale:, range:, invalid:)"));
+            d.checkFor(kind, "alarm " + id);
+        });
+        overrides = java.util.Collections.unmodifiableMap(byId);
+        Objects.requireNonNull(maxShelve, "maxShelve");
+        if (maxShelve.isNegative() || maxShelve.isZero()) {
+            throw new IllegalArgumentException("the longest shelf must be positive, was " + maxShelve);
+        }
+    }
+
+    /** The defaults of every kind, in a map that may be changed. */
+    public static EnumMap<AlarmKind, AlarmDefinition> defaultKinds() {
+        EnumMap<AlarmKind, AlarmDefinition> kinds = new EnumMap<>(AlarmKind.class);
+        kinds.put(AlarmKind.CLOSURE, CLOSURE_DEFAULT);
+        kinds.put(AlarmKind.GLOBAL_TEST, GLOBAL_TEST_DEFAULT);
+        kinds.put(AlarmKind.SUSPECT_SENSOR, SUSPECT_DEFAULT);
+        kinds.put(AlarmKind.STALE_SENSOR, STALE_DEFAULT);
+        kinds.put(AlarmKind.OUT_OF_RANGE, OUT_OF_RANGE_DEFAULT);
+        kinds.put(AlarmKind.CALCULATION_INVALID, CALCULATION_INVALID_DEFAULT);
+        return kinds;
+    }
+
+    /** The definition of every alarm of a kind that has no override. */
+    public AlarmDefinition definition(AlarmKind kind) {
+        return kinds.get(kind);
+    }
+
+    /** The definition of one alarm: its override, else its kind's. */
+    public AlarmDefinition definitionOf(AlarmKind kind, String alarmId) {
+        AlarmDefinition override = overrides.get(alarmId);
+        return override != null ? override : kinds.get(kind);
+    }
+}

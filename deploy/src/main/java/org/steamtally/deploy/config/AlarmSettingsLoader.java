@@ -1,0 +1,529 @@
+package org.steamtally.deploy.config;
+
+import java.io.IOException;
+import java.io.StringReader;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.Duration;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.EnumMap;
+import java.util.HashSet;
+import java.util.LinkedHashMap;
+import java.util.LinkedHashSet;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Set;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+
+import org.steamtally.calc.alarm.AlarmDefinition;
+import org.steamtally.calc.alarm.AlarmKind;
+import org.steamtally.calc.alarm.AlarmPriority;
+import org.steamtally.calc.alarm.AlarmSettings;
+import org.yaml.snakeyaml.LoaderOptions;
+import org.yaml.snakeyaml.Yaml;
+import org.yaml.snakeyaml.constructor.SafeConstructor;
+import org.yaml.snakeyaml.error.Mark;
+import org.yaml.snakeyaml.error.MarkedYAMLException;
+import org.yaml.snakeyaml.error.YAMLException;
+import org.yaml.snakeyaml.nodes.MappingNode;
+import org.yaml.snakeyaml.nodes.Node;
+import org.yaml.snakeyaml.nodes.NodeTuple;
+import org.yaml.snakeyaml.nodes.ScalarNode;
+import org.yaml.snakeyaml.nodes.SequenceNode;
+
+/**
+ * Reads the {@code alarms} section of a plant-description file (see docs/ALARMS.md) into
+ * {@link AlarmSettings}; {@link AlarmSettings#DEFAULTS} when the file has none. Every problem is
+ * reported with the file, line and column, all at once, as the plant-description loader does; that
+ * loader calls {@link #problems} so that a bad alarms section fails the file as a whole.
+ *
+ * <pre>
+ * alarms:
+ *   max_shelve: 8h
+ *   closure: {limit: 3, deadband: 0.5, on_delay: 10s, off_delay: 30s, priority: medium}
+ *   stale_sensor: {priority: low}
+ *   overrides:
+ *     - {id: "closure:cycle", limit: 4}
+ *     - {id: "stale:TT-101", enabled: false}
+ * </pre>
+ */
+public final class AlarmSettingsLoader {
+
+    /** The section's name at the top of the file. */
+    public static final String SECTION = "alarms";
+
+    private static final String MAX_SHELVE = "max_shelve";
+    private static final String OVERRIDES = "overrides";
+    private static final Pattern DURATION = Pattern.compile("(\\d+(?:\\.\\d+)?)\\s*(ms|s|min|h)");
+    /** The independent measurements a closure id may name besides components (docs/RESULTS.md, closure[]). */
+    private static final Set<String> CLOSURE_PARTS = Set.of("cooling_water", "motor", "fuel");
+
+    private AlarmSettingsLoader() {
+    }
+
+    /**
+     * Reads the alarm settings of one plant-description file.
+     *
+     * @throws PlantDescriptionException listing every problem of the section, each with file, line and
+     *                                   reason; also when the file cannot be read or is no YAML
+     */
+    public static AlarmSettings load(Path file) throws PlantDescriptionException {
+        String name = file.toString();
+        String text;
+        try {
+            text = Files.readString(file, StandardCharsets.UTF_8);
+        } catch (IOException | RuntimeException e) {
+            throw new PlantDescriptionException(name, List.of(new ConfigProblem(name, 0, 0,
+                    "cannot be read (" + e.getClass().getSimpleName() + ": " + e.getMessage() + ")")));
+        }
+        return parse(name, text);
+    }
+
+    /**
+     * Reads the alarm settings from plant-description text.
+     *
+     * @param fileName the name to give in problems
+     * @throws PlantDescriptionException listing every problem of the section
+     */
+    public static AlarmSettings parse(String fileName, String yaml) throws PlantDescriptionException {
+        Node root;
+        try {
+            root = new Yaml(new SafeConstructor(new LoaderOptions())).compose(new StringReader(yaml));
+        } catch (MarkedYAMLException e) {
+            Mark mark = e.getProblemMark() != null ? e.getProblemMark() : e.getContextMark();
+            throw new PlantDescriptionException(fileName, List.of(mark == null
+                    ? new ConfigProblem(fileName, 0, 0, "not valid YAML: " + e.getProblem())
+                    : new ConfigProblem(fileName, mark.getLine() + 1, mark.getColumn() + 1, "not valid YAML: "
+                    + e.getProblem())));
+        } catch (YAMLException e) {
+            throw new PlantDescriptionException(fileName, List.of(new ConfigProblem(fileName, 0, 0,
+                    "not valid YAML: " + e.getMessage())));
+        }
+        Reading reading = new Reading(fileName, root);
+        AlarmSettings settings = reading.read();
+        if (!reading.problems.isEmpty()) {
+            List<ConfigProblem> sorted = new ArrayList<>(reading.problems);
+            sorted.sort(Comparator.comparingInt(ConfigProblem::line).thenComparingInt(ConfigProblem::column));
+            throw new PlantDescriptionException(fileName, sorted);
+        }
+        return settings;
+    }
+
+    /**
+     * The problems of the alarms section of an already composed file, for the plant-description
+     * loader; empty when the section is absent or good.
+     *
+     * @param root the file's root node; null for an empty file
+     */
+    static List<ConfigProblem> problems(String fileName, Node root) {
+        if (root == null) {
+            return List.of();
+        }
+        Reading reading = new Reading(fileName, root);
+        reading.read();
+        return reading.problems;
+    }
+
+    private static final class Reading {
+        private final String file;
+        private final Node root;
+        final List<ConfigProblem> problems = new ArrayList<>();
+        private final Set<String> sensors = new HashSet<>();
+        private final Set<String> states = new HashSet<>();
+        private final Set<String> components = new HashSet<>();
+
+        Reading(String file, Node root) {
+            this.file = file;
+            this.root = root;
+        }
+
+        AlarmSettings read() {
+            Node section = child(root, SECTION);
+            if (section == null) {
+                return AlarmSettings.DEFAULTS;
+            }
+            collectIds();
+            if (isNull(section)) {
+                return AlarmSettings.DEFAULTS;
+            }
+            Set<String> allowed = new LinkedHashSet<>();
+            for (AlarmKind kind : AlarmKind.values()) {
+                allowed.add(kind.key());
+            }
+            allowed.add(MAX_SHELVE);
+            allowed.add(OVERRIDES);
+            Map<String, Node> entries = mapping(section, "the alarms section", allowed);
+            if (entries == null) {
+                return AlarmSettings.DEFAULTS;
+            }
+            EnumMap<AlarmKind, AlarmDefinition> kinds = AlarmSettings.defaultKinds();
+            for (AlarmKind kind : AlarmKind.values()) {
+                Node node = entries.get(kind.key());
+                if (node != null) {
+                    AlarmDefinition d = definition(node, kind, kinds.get(kind), "alarms." + kind.key(), false);
+                    if (d != null) {
+                        kinds.put(kind, d);
+                    }
+                }
+            }
+            Duration maxShelve = AlarmSettings.MAX_SHELVE_DEFAULT;
+            if (entries.containsKey(MAX_SHELVE)) {
+                Duration d = duration(entries.get(MAX_SHELVE), "alarms.max_shelve", false);
+                if (d != null) {
+                    maxShelve = d;
+                }
+            }
+            Map<String, AlarmDefinition> overrides = new LinkedHashMap<>();
+            if (entries.containsKey(OVERRIDES)) {
+                readOverrides(entries.get(OVERRIDES), kinds, overrides);
+            }
+            try {
+                return new AlarmSettings(kinds, overrides, maxShelve);
+            } catch (IllegalArgumentException e) {
+                // Each definition was checked where it was read; this catches what is left.
+                problem(section, e.getMessage());
+                return AlarmSettings.DEFAULTS;
+            }
+        }
+
+        private void readOverrides(Node node, Map<AlarmKind, AlarmDefinition> kinds,
+                                   Map<String, AlarmDefinition> overrides) {
+            if (!(node instanceof SequenceNode seq)) {
+                problem(node, "alarms.overrides must be a list of {id: ..., ...} entries, not " + describe(node));
+                return;
+            }
+            Map<String, Node> seen = new LinkedHashMap<>();
+            for (Node item : seq.getValue()) {
+                Node idNode = child(item, "id");
+                if (!(item instanceof MappingNode)) {
+                    problem(item, "each entry of alarms.overrides must be a mapping with an id, not " + describe(item));
+                    continue;
+                }
+                if (idNode == null || !(idNode instanceof ScalarNode idScalar) || idScalar.getValue().isBlank()) {
+                    problem(item, "an entry of alarms.overrides lacks the key \"id\" (the alarm id, e.g. \"closure:cycle\")");
+                    continue;
+                }
+                String id = idScalar.getValue().strip();
+                AlarmKind kind = AlarmKind.ofId(id).orElse(null);
+                if (kind == null) {
+                    problem(idNode, "alarm id \"" + id + "\" names no kind of alarm (ids start with closure:, "
+                            + "reconciliation:, suspect:, stale:, range:, invalid:state:, invalid:component:)");
+                    continue;
+                }
+                if (!checkSubject(idNode, id, kind)) {
+                    continue;
+                }
+                Node first = seen.putIfAbsent(id, idNode);
+                if (first != null) {
+                    problem(idNode, "alarm \"" + id + "\" is overridden twice (first at line "
+                            + (first.getStartMark().getLine() + 1) + ")");
+                    continue;
+                }
+                AlarmDefinition d = definition(item, kind, kinds.get(kind), "the override of " + id, true);
+                if (d != null) {
+                    overrides.put(id, d);
+                }
+            }
+        }
+
+        /** Whether the alarm id's subject exists in the file; a problem at the id when not. */
+        private boolean checkSubject(Node at, String id, AlarmKind kind) {
+            String subject = id.substring(kind.idPrefix().length());
+            String missing = switch (kind) {
+                case GLOBAL_TEST -> id.equals(AlarmKind.GLOBAL_TEST_ID) ? null
+                        : "the one global-test alarm is \"" + AlarmKind.GLOBAL_TEST_ID + "\"";
+                case SUSPECT_SENSOR, STALE_SENSOR, OUT_OF_RANGE -> sensors.contains(subject) ? null
+                        : "no sensor \"" + subject + "\" is declared";
+                case CALCULATION_INVALID -> {
+                    if (subject.startsWith("state:")) {
+                        yield states.contains(subject.substring(6)) ? null
+                                : "no state \"" + subject.substring(6) + "\" is declared";
+                    }
+                    if (subject.startsWith("component:")) {
+                        yield components.contains(subject.substring(10)) ? null
+                                : "no component \"" + subject.substring(10) + "\" is declared";
+                    }
+                    yield "its ids are invalid:state:<state id> and invalid:component:<component id>";
+                }
+                case CLOSURE -> closureMissing(subject);
+            };
+            if (missing != null) {
+                problem(at, "alarm id \"" + id + "\": " + missing);
+                return false;
+            }
+            return true;
+        }
+
+        private String closureMissing(String closureId) {
+            if (closureId.equals("cycle")) {
+                return null;
+            }
+            for (String part : closureId.split("\\+", -1)) {
+                if (!components.contains(part) && !CLOSURE_PARTS.contains(part)) {
+                    return "\"" + part + "\" is no declared component (closure ids are \"cycle\" or component ids"
+                            + " joined by +, with cooling_water, motor or fuel, as in docs/RESULTS.md)";
+                }
+            }
+            return null;
+        }
+
+        /** A definition from a mapping, over a base; null (with problems) when it cannot be used. */
+        private AlarmDefinition definition(Node node, AlarmKind kind, AlarmDefinition base, String what,
+                                           boolean withId) {
+            Set<String> allowed = new LinkedHashSet<>(List.of("enabled", "priority", "on_delay", "off_delay"));
+            if (kind.hasLimit()) {
+                allowed.add("limit");
+            }
+            if (kind.hasDeadband()) {
+                allowed.add("deadband");
+            }
+            if (withId) {
+                allowed.add("id");
+            }
+            if (isNull(node)) {
+                return base;
+            }
+            if (!(node instanceof MappingNode map)) {
+                problem(node, what + " must be a mapping of keys to values, not " + describe(node));
+                return null;
+            }
+            boolean ok = true;
+            boolean enabled = base.enabled();
+            AlarmPriority priority = base.priority();
+            Duration onDelay = base.onDelay();
+            Duration offDelay = base.offDelay();
+            double limit = base.limit();
+            double deadband = base.deadband();
+            Set<String> keys = new HashSet<>();
+            for (NodeTuple tuple : map.getValue()) {
+                Node keyNode = tuple.getKeyNode();
+                Node value = tuple.getValueNode();
+                String key = keyNode instanceof ScalarNode s ? s.getValue() : null;
+                if (key == null) {
+                    problem(keyNode, "a key in " + what + " must be a plain name");
+                    ok = false;
+                    continue;
+                }
+                if (!keys.add(key)) {
+                    problem(keyNode, "key \"" + key + "\" appears twice in " + what);
+                    ok = false;
+                    continue;
+                }
+                if (!allowed.contains(key)) {
+                    String why = (key.equals("limit") || key.equals("deadband")) && !kind.hasDeadband()
+                            ? what + ": " + kind.key() + " is a yes/no condition and has no " + key
+                            : key.equals("limit") && kind == AlarmKind.OUT_OF_RANGE
+                            ? what + ": the limits of out_of_range are each sensor's range; only its deadband is set here"
+                            : "unknown key \"" + key + "\" in " + what + " (allowed: " + String.join(", ", allowed) + ")";
+                    problem(keyNode, why);
+                    ok = false;
+                    continue;
+                }
+                switch (key) {
+                    case "id" -> { }
+                    case "enabled" -> {
+                        Boolean b = bool(value, key + " of " + what);
+                        ok &= b != null;
+                        enabled = b == null ? enabled : b;
+                    }
+                    case "priority" -> {
+                        AlarmPriority p = priority(value, key + " of " + what);
+                        ok &= p != null;
+                        priority = p == null ? priority : p;
+                    }
+                    case "on_delay", "off_delay" -> {
+                        Duration t = duration(value, key + " of " + what, true);
+                        ok &= t != null;
+                        if (t != null && key.equals("on_delay")) {
+                            onDelay = t;
+                        } else if (t != null) {
+                            offDelay = t;
+                        }
+                    }
+                    case "limit" -> {
+                        Double v = number(value, key + " of " + what);
+                        if (v != null && !(v > 0.0)) {
+                            problem(value, "limit of " + what + " must be positive, was " + v);
+                            v = null;
+                        }
+                        ok &= v != null;
+                        limit = v == null ? limit : v;
+                    }
+                    case "deadband" -> {
+                        Double v = number(value, key + " of " + what);
+                        if (v != null && v < 0.0) {
+                            problem(value, "deadband of " + what + " must not be negative, was " + v);
+                            v = null;
+                        }
+                        ok &= v != null;
+                        deadband = v == null ? deadband : v;
+                    }
+                    default -> throw new IllegalStateException(key);
+                }
+            }
+            if (!ok) {
+                return null;
+            }
+            try {
+                AlarmDefinition d = new AlarmDefinition(enabled, priority, onDelay, offDelay, limit, deadband);
+                // The checks the settings make for the kind, here so that the problem has a line.
+                new AlarmSettings(withKind(kind, d), Map.of(), AlarmSettings.MAX_SHELVE_DEFAULT);
+                return d;
+            } catch (IllegalArgumentException e) {
+                problem(node, what + ": " + e.getMessage());
+                return null;
+            }
+        }
+
+        private static EnumMap<AlarmKind, AlarmDefinition> withKind(AlarmKind kind, AlarmDefinition d) {
+            EnumMap<AlarmKind, AlarmDefinition> kinds = AlarmSettings.defaultKinds();
+            kinds.put(kind, d);
+            return kinds;
+        }
+
+        // ---- the ids the file declares, read leniently: the plant-description loader reports bad ones
+
+        private void collectIds() {
+            Node units = child(root, "units");
+            if (!(units instanceof SequenceNode unitList)) {
+                return;
+            }
+            for (Node unit : unitList.getValue()) {
+                collect(child(unit, "sensors"), sensors);
+                collect(child(unit, "states"), states);
+                collect(child(unit, "components"), components);
+            }
+        }
+
+        private static void collect(Node list, Set<String> ids) {
+            if (list instanceof SequenceNode seq) {
+                for (Node item : seq.getValue()) {
+                    if (child(item, "id") instanceof ScalarNode id) {
+                        ids.add(id.getValue().strip());
+                    }
+                }
+            }
+        }
+
+        // ---- node access
+
+        private static Node child(Node node, String key) {
+            if (node instanceof MappingNode map) {
+                for (NodeTuple tuple : map.getValue()) {
+                    if (tuple.getKeyNode() instanceof ScalarNode k && k.getValue().equals(key)) {
+                        return tuple.getValueNode();
+                    }
+                }
+            }
+            return null;
+        }
+
+        private static boolean isNull(Node node) {
+            return node instanceof ScalarNode s && s.getTag().getValue().endsWith(":null");
+        }
+
+        private Map<String, Node> mapping(Node node, String what, Set<String> allowed) {
+            if (!(node instanceof MappingNode map)) {
+                problem(node, what + " must be a mapping of keys to values, not " + describe(node));
+                return null;
+            }
+            Map<String, Node> entries = new LinkedHashMap<>();
+            for (NodeTuple tuple : map.getValue()) {
+                if (!(tuple.getKeyNode() instanceof ScalarNode keyNode)) {
+                    problem(tuple.getKeyNode(), "a key in " + what + " must be a plain name");
+                    continue;
+                }
+                String key = keyNode.getValue();
+                if (entries.containsKey(key)) {
+                    problem(keyNode, "key \"" + key + "\" appears twice in " + what);
+                } else if (!allowed.contains(key)) {
+                    problem(keyNode, "unknown key \"" + key + "\" in " + what + " (allowed: "
+                            + String.join(", ", allowed) + ")");
+                } else {
+                    entries.put(key, tuple.getValueNode());
+                }
+            }
+            return entries;
+        }
+
+        private static String describe(Node node) {
+            if (node instanceof ScalarNode scalar) {
+                return "\"" + scalar.getValue() + "\"";
+            }
+            return node instanceof SequenceNode ? "a list" : "a mapping";
+        }
+
+        private Double number(Node node, String what) {
+            if (node instanceof ScalarNode scalar) {
+                try {
+                    double value = Double.parseDouble(scalar.getValue().strip().replace("_", ""));
+                    if (Double.isFinite(value)) {
+                        return value;
+                    }
+                } catch (NumberFormatException e) {
+                    // Reported below, with the text that was given.
+                }
+            }
+            problem(node, what + " must be a number, not " + describe(node));
+            return null;
+        }
+
+        private Boolean bool(Node node, String what) {
+            if (node instanceof ScalarNode scalar) {
+                String v = scalar.getValue().strip();
+                if (v.equals("true") || v.equals("false")) {
+                    return Boolean.valueOf(v);
+                }
+            }
+            problem(node, what + " must be true or false, not " + describe(node));
+            return null;
+        }
+
+        private AlarmPriority priority(Node node, String what) {
+            if (node instanceof ScalarNode scalar) {
+                for (AlarmPriority p : AlarmPriority.values()) {
+                    if (p.key().equals(scalar.getValue().strip())) {
+                        return p;
+                    }
+                }
+            }
+            List<String> names = new ArrayList<>();
+            for (AlarmPriority p : AlarmPriority.values()) {
+                names.add(p.key());
+            }
+            problem(node, what + " must be one of " + String.join(", ", names) + ", not " + describe(node));
+            return null;
+        }
+
+        private Duration duration(Node node, String what, boolean zeroAllowed) {
+            if (node instanceof ScalarNode scalar) {
+                Matcher m = DURATION.matcher(scalar.getValue().strip().toLowerCase(Locale.ROOT));
+                if (m.matches()) {
+                    double amount = Double.parseDouble(m.group(1));
+                    double millis = amount * switch (m.group(2)) {
+                        case "ms" -> 1.0;
+                        case "s" -> 1e3;
+                        case "min" -> 60e3;
+                        default -> 3600e3;
+                    };
+                    if (millis >= 1.0 || zeroAllowed && millis == 0.0) {
+                        return Duration.ofMillis(Math.round(millis));
+                    }
+                }
+            }
+            problem(node, what + " must be a duration with its unit, e.g. 0s, 500ms, 10s, 2min or 8h"
+                    + (zeroAllowed ? "" : ", more than zero") + ", not " + describe(node));
+            return null;
+        }
+
+        private void problem(Node node, String message) {
+            Mark mark = node.getStartMark();
+            problems.add(mark == null ? new ConfigProblem(file, 0, 0, message)
+                    : new ConfigProblem(file, mark.getLine() + 1, mark.getColumn() + 1, message));
+        }
+    }
+}

@@ -1,0 +1,165 @@
+package org.steamtally.deploy.config;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.Duration;
+import java.util.List;
+import java.util.Map;
+
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.dataformat.yaml.YAMLMapper;
+import com.networknt.schema.Error;
+import com.networknt.schema.SchemaRegistry;
+import com.networknt.schema.SpecificationVersion;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.ValueSource;
+import org.steamtally.calc.alarm.AlarmDefinition;
+import org.steamtally.calc.alarm.AlarmKind;
+import org.steamtally.calc.alarm.AlarmPriority;
+import org.steamtally.calc.alarm.AlarmSettings;
+
+/**
+ * The {@code alarms} section of a plant description to {@link AlarmSettings}: defaults where it is
+ * absent, every key read, bad values named with file and line (the bad files themselves are checked
+ * line by line in {@link BadPlantDescriptionTest}, through the plant-description loader).
+ */
+class AlarmSettingsLoaderTest {
+
+    private static Path resource(String name) throws Exception {
+        return Path.of(AlarmSettingsLoaderTest.class.getResource(name).toURI());
+    }
+
+    @Test
+    void fileWithoutAlarmsSectionGetsTheDefaults() throws Exception {
+        assertEquals(AlarmSettings.DEFAULTS, AlarmSettingsLoader.load(resource("valid-minimal.yaml")));
+    }
+
+    @ParameterizedTest
+    @ValueSource(strings = {"simple.yaml", "reheat.yaml", "regenerative.yaml"})
+    void shippedExamplesLoadTheirAlarmSettings(String name) throws Exception {
+        AlarmSettings settings = AlarmSettingsLoader.load(ExamplePlantDescriptionTest.example(name));
+        assertTrue(settings.definition(AlarmKind.CLOSURE).enabled());
+    }
+
+    @Test
+    void emptyAlarmsSectionGetsTheDefaults() throws Exception {
+        String yaml = Files.readString(resource("valid-minimal.yaml")) + "alarms:\n";
+        assertEquals(AlarmSettings.DEFAULTS, AlarmSettingsLoader.parse("x.yaml", yaml));
+    }
+
+    @Test
+    void everyKeyOfTheFullSectionIsRead() throws Exception {
+        AlarmSettings s = AlarmSettingsLoader.load(resource("alarms-full.yaml"));
+        assertEquals(Duration.ofHours(12), s.maxShelve());
+        assertEquals(new AlarmDefinition(true, AlarmPriority.HIGH, Duration.ofSeconds(15), Duration.ofMinutes(1), 3.5, 0.5),
+                s.definition(AlarmKind.CLOSURE));
+        assertEquals(new AlarmDefinition(true, AlarmPriority.MEDIUM, Duration.ofSeconds(10), Duration.ofSeconds(30), 1.0, 0.05),
+                s.definition(AlarmKind.GLOBAL_TEST));
+        // Keys not given keep the defaults.
+        assertEquals(AlarmSettings.SUSPECT_DEFAULT.withLimit(2.58).withDeadband(0.3).withPriority(AlarmPriority.URGENT),
+                s.definition(AlarmKind.SUSPECT_SENSOR));
+        assertEquals(AlarmSettings.STALE_DEFAULT.withDelays(Duration.ZERO, Duration.ofSeconds(2))
+                .withPriority(AlarmPriority.MEDIUM), s.definition(AlarmKind.STALE_SENSOR));
+        assertEquals(AlarmSettings.OUT_OF_RANGE_DEFAULT.withDeadband(0.01), s.definition(AlarmKind.OUT_OF_RANGE));
+        assertFalse(s.definition(AlarmKind.CALCULATION_INVALID).enabled());
+        // An override starts from its kind's definition in the file, not from the built-in default.
+        assertEquals(s.definition(AlarmKind.CLOSURE).withLimit(4.0), s.definitionOf(AlarmKind.CLOSURE, "closure:cycle"));
+        assertEquals(AlarmPriority.LOW,
+                s.definitionOf(AlarmKind.CLOSURE, "closure:condenser+cooling_water").priority());
+        assertFalse(s.definitionOf(AlarmKind.STALE_SENSOR, "stale:JT-1").enabled());
+        assertTrue(s.definitionOf(AlarmKind.CALCULATION_INVALID, "invalid:component:pump").enabled());
+        assertEquals(Duration.ofMinutes(2),
+                s.definitionOf(AlarmKind.GLOBAL_TEST, AlarmKind.GLOBAL_TEST_ID).offDelay());
+        assertEquals(3.0, s.definitionOf(AlarmKind.SUSPECT_SENSOR, "suspect:FT-1").limit());
+        assertEquals(6, s.overrides().size());
+    }
+
+    @Test
+    void fullSectionPassesThePlantDescriptionLoaderToo() throws Exception {
+        PlantDescriptionLoader.load(resource("alarms-full.yaml"));
+    }
+
+    @Test
+    void badSectionFailsWithFileLineAndColumnOfEachProblem() throws Exception {
+        Path file = resource("bad/alarms-bad-settings.yaml");
+        PlantDescriptionException e = assertThrows(PlantDescriptionException.class, () -> AlarmSettingsLoader.load(file));
+        assertEquals(14, e.problems().size(), e.getMessage());
+        List<String> lines = Files.readAllLines(file);
+        int closureLine = lines.indexOf("  closure: {limit: 3, deadband: 3.5}  # expect: alarms.closure: deadband 3.5"
+                + " must be below the limit 3.0") + 1;
+        assertTrue(e.getMessage().contains(file + ":" + closureLine + ":12: alarms.closure: deadband 3.5 must be below"
+                + " the limit 3.0, else the alarm could never clear"), e.getMessage());
+    }
+
+    @Test
+    void deadbandAndLimitMayComeInEitherOrder() throws Exception {
+        String yaml = Files.readString(resource("valid-minimal.yaml"))
+                + "alarms:\n  closure: {limit: 0.4, deadband: 0.1}\n  suspect_sensor: {deadband: 0.1, limit: 0.2}\n";
+        AlarmSettings s = AlarmSettingsLoader.parse("x.yaml", yaml);
+        assertEquals(0.4, s.definition(AlarmKind.CLOSURE).limit());
+        assertEquals(0.2, s.definition(AlarmKind.SUSPECT_SENSOR).limit());
+    }
+
+    @Test
+    void notYamlIsOneProblemWithItsLine() {
+        PlantDescriptionException e = assertThrows(PlantDescriptionException.class,
+                () -> AlarmSettingsLoader.parse("x.yaml", "alarms: {closure: [\n"));
+        assertEquals(1, e.problems().size());
+        assertTrue(e.problems().get(0).line() > 0, e.getMessage());
+    }
+
+    // ---- the JSON Schema
+
+    private static List<Error> validate(String yaml) throws IOException {
+        Path schemaFile = Files.exists(Path.of("..", "docs", "plant-description.schema.json"))
+                ? Path.of("..", "docs", "plant-description.schema.json") : Path.of("docs", "plant-description.schema.json");
+        var schema = SchemaRegistry.withDefaultDialect(SpecificationVersion.DRAFT_2020_12)
+                .getSchema(new ObjectMapper().readTree(schemaFile.toFile()));
+        return schema.validate(new YAMLMapper().readTree(yaml));
+    }
+
+    @Test
+    void fullSectionSatisfiesTheSchema() throws Exception {
+        assertEquals(List.of(), validate(Files.readString(resource("alarms-full.yaml"))));
+    }
+
+    @ParameterizedTest(name = "{0}")
+    @ValueSource(strings = {
+        "unknown kind|closure: {limit: 3.5,|closures: {limit: 3.5,",
+        "unknown priority|priority: urgent}|priority: critical}",
+        "limit on a yes/no kind|stale_sensor: {on_delay: 0s,|stale_sensor: {limit: 2, on_delay: 0s,",
+        "duration without unit|max_shelve: 12h|max_shelve: 12",
+        "override without id|- {id: \"suspect:FT-1\", limit: 3}|- {limit: 3}",
+        "override id of no kind|- {id: \"closure:cycle\", limit: 4}|- {id: \"cycle\", limit: 4}",
+    })
+    void malformedSectionIsRejectedByTheSchema(String testCase) throws Exception {
+        String[] parts = testCase.split("\\|");
+        String text = Files.readString(resource("alarms-full.yaml"));
+        assertTrue(text.contains(parts[1]), parts[0]);
+        assertFalse(validate(text.replace(parts[1], parts[2])).isEmpty(), parts[0]);
+    }
+
+    @Test
+    void defaultsAreWhatDocsAlarmsSays() {
+        // docs/ALARMS.md, "Defaults": one row per kind.
+        Map<AlarmKind, String> documented = Map.of(
+                AlarmKind.CLOSURE, "medium 10s 30s 3.0 0.5",
+                AlarmKind.GLOBAL_TEST, "medium 10s 30s 1.0 0.1",
+                AlarmKind.SUSPECT_SENSOR, "high 10s 60s 1.96 0.25",
+                AlarmKind.STALE_SENSOR, "low 5s 5s 0.0 0.0",
+                AlarmKind.OUT_OF_RANGE, "medium 5s 10s 0.0 0.02",
+                AlarmKind.CALCULATION_INVALID, "low 10s 10s 0.0 0.0");
+        documented.forEach((kind, row) -> {
+            AlarmDefinition d = AlarmSettings.DEFAULTS.definition(kind);
+            assertEquals(row, d.priority().key() + " " + d.onDelay().toSeconds() + "s " + d.offDelay().toSeconds() + "s "
+                    + d.limit() + " " + d.deadband(), kind.key());
+        });
+    }
+}
