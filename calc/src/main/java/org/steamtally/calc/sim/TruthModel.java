@@ -39,7 +39,8 @@ import org.steamtally.calc.steam.SteamState;
  *
  * <h2>Temperatures and enthalpies</h2>
  * Temperatures given in the design point are held, except at heater and condenser outlets fixed by
- * (p, T), which keep their design difference to the saturation temperature of their shell. Turbine
+ * (p, T), which keep their design difference to the saturation temperature of their shell, and at
+ * pump outlets, which keep their design rise over the pump's inlet temperature. Turbine
  * and pump outlets whose temperature is not given, and states fixed by an energy balance (the wet
  * exhaust), follow from the component's isentropic efficiency, held at its design value: for a
  * turbine h = h_in − η (h_in − h_s(p, s_in)) at each extraction and the outlet, for a pump
@@ -61,8 +62,10 @@ public final class TruthModel {
     private static final double RANK_TOLERANCE = 1e-10;
     /** Energy rows in MJ/kg so that their coefficients are of order one, like the mass rows. */
     private static final double ENERGY_ROW_SCALE = 1e-6;
+    /** A balance missing by more than this fraction of the largest flow is not rounding. */
+    private static final double CONSISTENCY_TOLERANCE = 1e-9;
 
-    private enum TemperatureRule { HELD, SATURATION_MARGIN, EXPANSION, PUMPED, SATURATED, BALANCE }
+    private enum TemperatureRule { HELD, SATURATION_MARGIN, PUMP_RISE, EXPANSION, PUMPED, SATURATED }
 
     private final UnitDescription unit;
     private final DesignPoint design;
@@ -80,6 +83,8 @@ public final class TruthModel {
     /** For SATURATION_MARGIN: the state whose pressure is the shell's, and the design margin, K. */
     private final int[] shell;
     private final double[] designMargin;
+    /** For PUMP_RISE: the design temperature rise across the pump, K; NaN until the design point is solved. */
+    private final double[] designRise;
     private final double[] referenceFlow;
     private final List<int[]> massRows = new ArrayList<>();
     private final List<int[]> energyRows = new ArrayList<>();
@@ -105,6 +110,8 @@ public final class TruthModel {
         rule = new TemperatureRule[n];
         shell = new int[n];
         designMargin = new double[n];
+        designRise = new double[n];
+        java.util.Arrays.fill(designRise, Double.NaN);
         referenceFlow = new double[n];
         for (int j = 0; j < n; j++) {
             id[j] = flowing.get(j).id();
@@ -168,8 +175,15 @@ public final class TruthModel {
         if (!problems.isEmpty()) {
             throw new TruthModelException(unit.id(), problems);
         }
-        // The design point itself must be a physical state.
-        at(OperatingConditions.DESIGN);
+        // The design point itself must be a physical state. A pump outlet whose temperature is given
+        // keeps its design rise over the inlet, which the design point's inlet temperature fixes.
+        TruthPoint first = at(OperatingConditions.DESIGN);
+        for (int j = 0; j < n; j++) {
+            if (rule[j] == TemperatureRule.PUMP_RISE) {
+                String inlet = source[j].inlets().get(0);
+                designRise[j] = designTemperature[j] - first.state(inlet).temperatureK();
+            }
+        }
     }
 
     /**
@@ -229,6 +243,8 @@ public final class TruthModel {
                             || source[j] instanceof Component.Condenser) {
                         rule[j] = TemperatureRule.SATURATION_MARGIN;
                         shell[j] = j;
+                    } else if (source[j] instanceof Component.Pump) {
+                        rule[j] = TemperatureRule.PUMP_RISE;
                     } else {
                         rule[j] = TemperatureRule.HELD;
                     }
@@ -526,6 +542,13 @@ public final class TruthModel {
         private boolean tryEnthalpy(int j) {
             switch (rule[j]) {
                 case HELD -> setPT(j, designTemperature[j]);
+                case PUMP_RISE -> {
+                    int in = stateIndex.get(source[j].inlets().get(0));
+                    if (!hDone[in]) {
+                        return false;
+                    }
+                    setPT(j, Double.isNaN(designRise[j]) ? designTemperature[j] : t[in] + designRise[j]);
+                }
                 case SATURATION_MARGIN -> setPT(j, Steam.saturationTemperature(p[shell[j]]) - designMargin[j]);
                 case SATURATED -> {
                     double x = fix[j] instanceof StateFix.SaturatedLiquid ? 0.0
@@ -602,6 +625,11 @@ public final class TruthModel {
                     b[r++] = load * referenceFlow[j];
                 }
             }
+            double[][] a0 = new double[rows][];
+            for (int k = 0; k < rows; k++) {
+                a0[k] = a[k].clone();
+            }
+            double[] b0 = b.clone();
             double[] x = LeastSquares.solve(a, b, RANK_TOLERANCE);
             if (x == null) {
                 problems.add("the reference flows " + design.referenceFlows().keySet()
@@ -611,6 +639,20 @@ public final class TruthModel {
             double largest = 0.0;
             for (double v : x) {
                 largest = Math.max(largest, Math.abs(v));
+            }
+            // The system is consistent for any plant the cycle model accepts (its balances are square);
+            // a residual far above rounding means a balance the held design temperatures cannot meet.
+            for (int k = 0; k < rows; k++) {
+                double residual = -b0[k];
+                for (int j = 0; j < n; j++) {
+                    residual += a0[k][j] * x[j];
+                }
+                if (Math.abs(residual) > CONSISTENCY_TOLERANCE * largest) {
+                    problems.add("the mass and heater balances cannot all hold " + where() + " (row " + k
+                            + " misses by " + residual + " kg/s): a mixer or heater outlet temperature in the design"
+                            + " point is over-determined by its inlets");
+                    return;
+                }
             }
             for (int j = 0; j < n; j++) {
                 m[j] = x[j];
@@ -686,9 +728,17 @@ public final class TruthModel {
                         put(v, set, cw.outletTemperatureSensor(), coolingWaterTemperature(cw.pressurePa(), hOut, tIn));
                     }
                 } else if (c instanceof Component.TurbineSection) {
-                    turbine -= steamSide(c);
+                    double w = -steamSide(c);
+                    if (!(w > 0.0)) {
+                        problems.add("turbine section \"" + c.id() + "\" would do no work " + where() + ": " + w + " W");
+                    }
+                    turbine += w;
                 } else if (c instanceof Component.Pump pu) {
                     double w = steamSide(c);
+                    if (!(w > 0.0)) {
+                        problems.add("pump \"" + c.id() + "\" would take no work " + where() + ": " + w
+                                + " W; its outlet is too cold for its inlet");
+                    }
                     pump += w;
                     if (pu.motor().isPresent()) {
                         MotorMeasurement motor = pu.motor().get();
@@ -709,6 +759,7 @@ public final class TruthModel {
                     }
                 }
             }
+            fail();
             if (casingTotal > 0.0) {
                 expected.put("cycle", casingTotal);
             }

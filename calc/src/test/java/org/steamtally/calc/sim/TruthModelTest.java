@@ -99,6 +99,24 @@ class TruthModelTest {
     }
 
     @Test
+    void pumpOutletWithAGivenTemperatureKeepsItsDesignRiseOverTheInlet() {
+        DesignPoint full = SimpleUnit.design().build();
+        Map<String, Double> eta = new HashMap<>(full.isentropicEfficiencies());
+        eta.remove("feed_pump");
+        Map<String, Double> values = new HashMap<>(full.sensorValuesSi());
+        values.put("TT-401", 313.0);
+        TruthModel model = TruthModel.of(SimpleUnit.unit(),
+                new DesignPoint(full.referenceFlows(), values, eta, full.flowMeters(), 0.0));
+        assertEquals(313.0, model.atDesign().valueSi("TT-401"), 1e-9);
+        TruthPoint warm = model.at(new OperatingConditions(1.0, 5.0));
+        // The condensate is saturated at the condenser pressure, whose saturation temperature rose 5 K.
+        assertEquals(313.0 + 5.0, warm.valueSi("TT-401"), 1e-6);
+        for (ClosureResult c : evaluate(warm).closure()) {
+            assertTrue(Math.abs(c.z()) < Z_TOLERANCE, c.id() + ": z " + c.z());
+        }
+    }
+
+    @Test
     void missingDesignPressureIsNamed() {
         DesignPoint full = SimpleUnit.design().build();
         Map<String, Double> values = new HashMap<>(full.sensorValuesSi());
