@@ -62,10 +62,13 @@ public final class TruthModel {
     private static final double RANK_TOLERANCE = 1e-10;
     /** Energy rows in MJ/kg so that their coefficients are of order one, like the mass rows. */
     private static final double ENERGY_ROW_SCALE = 1e-6;
+    /** Mixed enthalpies settled to this, J/kg, are exact to rounding for the balances (1e-9 of h). */
+    private static final double MIXING_TOLERANCE_J_PER_KG = 1e-6;
+    private static final int MAX_MIXING_PASSES = 100;
     /** A balance missing by more than this fraction of the largest flow is not rounding. */
     private static final double CONSISTENCY_TOLERANCE = 1e-9;
 
-    private enum TemperatureRule { HELD, SATURATION_MARGIN, PUMP_RISE, EXPANSION, PUMPED, SATURATED }
+    private enum TemperatureRule { HELD, SATURATION_MARGIN, PUMP_RISE, EXPANSION, PUMPED, SATURATED, MIXED }
 
     private final UnitDescription unit;
     private final DesignPoint design;
@@ -213,7 +216,10 @@ public final class TruthModel {
         } else if (f instanceof StateFix.PressureQuality pq) {
             return pq.pressureSensor();
         }
-        return ((StateFix.EnergyBalance) f).pressureSensor();
+        if (f instanceof StateFix.EnergyBalance eb) {
+            return eb.pressureSensor();
+        }
+        throw new IllegalArgumentException("the truth model does not know the state fix " + f);
     }
 
     private void assignRules(List<String> problems) {
@@ -258,8 +264,10 @@ public final class TruthModel {
                             + (source[j] instanceof Component.TurbineSection || source[j] instanceof Component.Pump
                             ? " or the isentropic efficiency of \"" + source[j].id() + "\"" : ""));
                 }
-            } else if (fix[j] instanceof StateFix.EnergyBalance) {
-                if (eta != null && source[j] instanceof Component.TurbineSection) {
+            } else if (fix[j] instanceof StateFix.EnergyBalance eb) {
+                if (source[j] instanceof Component.Mixer x && x.id().equals(eb.componentId())) {
+                    rule[j] = TemperatureRule.MIXED;
+                } else if (eta != null && source[j] instanceof Component.TurbineSection) {
                     rule[j] = TemperatureRule.EXPANSION;
                 } else if (eta != null && source[j] instanceof Component.Pump) {
                     rule[j] = TemperatureRule.PUMPED;
@@ -356,21 +364,25 @@ public final class TruthModel {
             } else {
                 addMass(c.inlets(), c.outlets());
             }
-            if (c instanceof Component.OpenFeedwaterHeater || c instanceof Component.Mixer
+            boolean mixing = c instanceof Component.Mixer x && rule[stateIndex.get(x.outlet())] == TemperatureRule.MIXED;
+            if (c instanceof Component.OpenFeedwaterHeater || c instanceof Component.Mixer && !mixing
                     || c instanceof Component.ClosedFeedwaterHeater) {
-                int[] js = new int[c.inlets().size() + c.outlets().size()];
-                double[] sg = new double[js.length];
-                int k = 0;
-                for (String s : c.inlets()) {
-                    js[k] = stateIndex.get(s);
-                    sg[k++] = 1.0;
+                // A mixed outlet's m h is its mixer's Σ m_in h_in, which keeps the rows linear in the flows.
+                List<Integer> js = new ArrayList<>();
+                List<Double> sg = new ArrayList<>();
+                for (int pass = 0; pass < 2; pass++) {
+                    double sign = pass == 0 ? 1.0 : -1.0;
+                    for (String port : pass == 0 ? c.inlets() : c.outlets()) {
+                        int j = stateIndex.get(port);
+                        List<String> terms = rule[j] == TemperatureRule.MIXED ? source[j].inlets() : List.of(port);
+                        for (String t : terms) {
+                            js.add(stateIndex.get(t));
+                            sg.add(sign);
+                        }
+                    }
                 }
-                for (String s : c.outlets()) {
-                    js[k] = stateIndex.get(s);
-                    sg[k++] = -1.0;
-                }
-                energyRows.add(js);
-                energySigns.add(sg);
+                energyRows.add(js.stream().mapToInt(Integer::intValue).toArray());
+                energySigns.add(sg.stream().mapToDouble(Double::doubleValue).toArray());
             }
         }
     }
@@ -425,6 +437,7 @@ public final class TruthModel {
         private final double[] s = new double[n];
         private final boolean[] hDone = new boolean[n];
         private final double[] m = new double[n];
+        private final double[] mixedEnthalpy = new double[n];
         private final List<String> problems = new ArrayList<>();
 
         Evaluation(OperatingConditions conditions) {
@@ -444,10 +457,44 @@ public final class TruthModel {
                     p[j] = p[first];
                 }
             }
-            enthalpies();
-            fail();
-            flows();
-            fail();
+            java.util.Arrays.fill(mixedEnthalpy, Double.NaN);
+            // A mixed outlet's enthalpy needs the flows, and states downstream of it may enter the
+            // balances that give the flows: iterate to the fixed point (one pass without mixers).
+            for (int pass = 0; ; pass++) {
+                java.util.Arrays.fill(hDone, false);
+                enthalpies();
+                fail();
+                flows();
+                fail();
+                double change = 0.0;
+                for (int j = 0; j < n; j++) {
+                    if (rule[j] == TemperatureRule.MIXED) {
+                        Component x = source[j];
+                        double sum = 0.0;
+                        for (String inlet : x.inlets()) {
+                            int k = stateIndex.get(inlet);
+                            sum += m[k] * h[k];
+                        }
+                        double mixed = sum / m[j];
+                        change = Math.max(change, Math.abs(mixed - mixedEnthalpy[j]));
+                        mixedEnthalpy[j] = mixed;
+                    }
+                }
+                if (change == 0.0 || change < MIXING_TOLERANCE_J_PER_KG && pass > 0) {
+                    if (change > 0.0) {
+                        java.util.Arrays.fill(hDone, false);
+                        enthalpies();
+                        flows();
+                        fail();
+                    }
+                    break;
+                }
+                if (pass == MAX_MIXING_PASSES) {
+                    problems.add("the mixing of mixer outlets does not settle " + where() + " after " + pass
+                            + " passes (last change " + change + " J/kg)");
+                    fail();
+                }
+            }
             return assemble();
         }
 
@@ -550,6 +597,24 @@ public final class TruthModel {
                     setPT(j, Double.isNaN(designRise[j]) ? designTemperature[j] : t[in] + designRise[j]);
                 }
                 case SATURATION_MARGIN -> setPT(j, Steam.saturationTemperature(p[shell[j]]) - designMargin[j]);
+                case MIXED -> {
+                    // The previous pass's mixing, or for the first pass the mean of the inlets.
+                    if (Double.isNaN(mixedEnthalpy[j])) {
+                        double sum = 0.0;
+                        for (String inlet : source[j].inlets()) {
+                            int k = stateIndex.get(inlet);
+                            if (!hDone[k]) {
+                                return false;
+                            }
+                            sum += h[k];
+                        }
+                        mixedEnthalpy[j] = sum / source[j].inlets().size();
+                    }
+                    SteamState st = Steam.statePH(p[j], mixedEnthalpy[j]);
+                    t[j] = st.temperatureK();
+                    h[j] = mixedEnthalpy[j];
+                    s[j] = st.entropyJPerKgK();
+                }
                 case SATURATED -> {
                     double x = fix[j] instanceof StateFix.SaturatedLiquid ? 0.0
                             : fix[j] instanceof StateFix.SaturatedVapour ? 1.0 : ((StateFix.PressureQuality) fix[j]).quality();
