@@ -10,7 +10,8 @@ import java.util.Objects;
  * noise-free snapshot because of a modelled loss it does not know of (closure id to W; a closure
  * not named should be zero).
  *
- * <p>The array is owned by the truth point; read it, do not change it.
+ * <p>{@link #sensorValuesSi()} returns a copy, so a caller may hand it to a snapshot, which owns
+ * its arrays.
  */
 public record TruthPoint(OperatingConditions conditions, List<String> sensorIds, double[] sensorValuesSi,
                          List<TruthState> states, TruthFigures figures, Map<String, Double> expectedResidualsW) {
@@ -25,6 +26,13 @@ public record TruthPoint(OperatingConditions conditions, List<String> sensorIds,
         states = List.copyOf(states);
         Objects.requireNonNull(figures, "figures");
         expectedResidualsW = Map.copyOf(expectedResidualsW);
+        sensorValuesSi = sensorValuesSi.clone();
+    }
+
+    /** The true value of every sensor, SI, in the unit's sensor order; a fresh copy. */
+    @Override
+    public double[] sensorValuesSi() {
+        return sensorValuesSi.clone();
     }
 
     /** The true value of one sensor, SI. */

@@ -9,6 +9,7 @@ import java.time.Instant;
 import java.util.List;
 import java.util.Map;
 import java.util.stream.Stream;
+import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.Arguments;
 import org.junit.jupiter.params.provider.MethodSource;
@@ -25,6 +26,7 @@ import org.steamtally.calc.sim.DesignPoint;
 import org.steamtally.calc.sim.OperatingConditions;
 import org.steamtally.calc.sim.TruthModel;
 import org.steamtally.calc.sim.TruthPoint;
+import org.steamtally.calc.steam.Steam;
 import org.steamtally.deploy.config.PlantDescriptionLoader;
 
 /**
@@ -99,6 +101,26 @@ class ShippedExamplesTruthTest {
                 assertClose(truth.state(s.id()).enthalpyJPerKg(), s.enthalpyJPerKg().getAsDouble(), "h of " + s.id());
             }
         }
+    }
+
+    @Test
+    void heaterShellsFollowTheirExtractionAndKeepTheirTerminalTemperatureDifferenceAtPartLoad() throws Exception {
+        UnitDescription unit = PlantDescriptionLoader.load(example("regenerative.yaml")).units().get(0);
+        TruthModel model = TruthModel.of(unit, ExampleDesignPoints.regenerative());
+        TruthPoint design = model.atDesign();
+        TruthPoint low = model.at(new OperatingConditions(0.4, 0.0));
+        // HP heater: shell (PT-431) keeps its design ratio to the HP extraction (PT-111).
+        assertEquals(design.valueSi("PT-431") / design.valueSi("PT-111"), low.valueSi("PT-431") / low.valueSi("PT-111"),
+                1e-12);
+        // The feedwater leaving it (TT-421) stays the design distance below the shell's saturation temperature.
+        double ttdDesign = Steam.saturationTemperature(design.valueSi("PT-431")) - design.valueSi("TT-421");
+        double ttdLow = Steam.saturationTemperature(low.valueSi("PT-431")) - low.valueSi("TT-421");
+        assertEquals(ttdDesign, ttdLow, 1e-9);
+        assertTrue(low.valueSi("TT-421") < design.valueSi("TT-421") - 20.0, "final feedwater is colder at 40 % load");
+        // The HP extraction itself follows the cone law against the HP section's outlet (cold reheat, PT-121).
+        double pOut = low.valueSi("PT-121");
+        double expected = Math.sqrt(pOut * pOut + 0.16 * (4.2e6 * 4.2e6 - 2.8e6 * 2.8e6));
+        assertEquals(expected, low.valueSi("PT-111"), 1e-9 * expected);
     }
 
     private static void assertClose(double expected, double actual, String what) {
