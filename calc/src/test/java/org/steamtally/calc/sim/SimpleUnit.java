@@ -41,6 +41,15 @@ final class SimpleUnit {
     }
 
     static UnitDescription unit() {
+        return unit(false);
+    }
+
+    /**
+     * @param exactConstants efficiencies and heating value without uncertainty, so that every
+     *                       closure's u(r) comes from the sensors alone
+     */
+    static UnitDescription unit(boolean exactConstants) {
+        double k = exactConstants ? 0.0 : 1.0;
         List<Sensor> sensors = List.of(
                 sensor("PT-101", Quantity.PRESSURE, 15e3, 0, 16e6),
                 sensor("TT-101", Quantity.TEMPERATURE, 0.75, 273.15, 873.15),
@@ -67,14 +76,14 @@ final class SimpleUnit {
                         Optional.empty()));
         List<Component> components = List.of(
                 new Component.SteamGenerator("boiler", "feedwater", "main_steam", Optional.of(new FuelMeasurement(
-                        "FT-900", new UncertainConstant(25.1e6, 0.25e6), new UncertainConstant(0.89, 0.01)))),
+                        "FT-900", new UncertainConstant(25.1e6, k * 0.25e6), new UncertainConstant(0.89, k * 0.01)))),
                 new Component.TurbineSection("turbine", "main_steam", "exhaust", List.of(), Optional.of("exhaust_ideal")),
                 new Component.Condenser("condenser", List.of("exhaust"), "condensate",
                         Optional.of(new CoolingWater("FT-501", "TT-501", "TT-502", 250e3))),
                 new Component.Pump("feed_pump", "condensate", "feedwater",
-                        Optional.of(new MotorMeasurement("JT-401", new UncertainConstant(0.95, 0.01))),
+                        Optional.of(new MotorMeasurement("JT-401", new UncertainConstant(0.95, k * 0.01))),
                         Optional.of("feedwater_ideal")),
-                new Component.Generator("generator", List.of("turbine"), "JT-001", new UncertainConstant(0.975, 0.003)));
+                new Component.Generator("generator", List.of("turbine"), "JT-001", new UncertainConstant(0.975, k * 0.003)));
         return new UnitDescription("unit1", "simple test unit", sensors, states, components, new DeadState(288.15, 100.8e3));
     }
 
