@@ -1,6 +1,7 @@
 package org.steamtally.calc.sim;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.HashMap;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -114,7 +115,7 @@ public final class TruthModel {
         shell = new int[n];
         designMargin = new double[n];
         designRise = new double[n];
-        java.util.Arrays.fill(designRise, Double.NaN);
+        Arrays.fill(designRise, Double.NaN);
         referenceFlow = new double[n];
         for (int j = 0; j < n; j++) {
             id[j] = flowing.get(j).id();
@@ -457,11 +458,11 @@ public final class TruthModel {
                     p[j] = p[first];
                 }
             }
-            java.util.Arrays.fill(mixedEnthalpy, Double.NaN);
+            Arrays.fill(mixedEnthalpy, Double.NaN);
             // A mixed outlet's enthalpy needs the flows, and states downstream of it may enter the
             // balances that give the flows: iterate to the fixed point (one pass without mixers).
             for (int pass = 0; ; pass++) {
-                java.util.Arrays.fill(hDone, false);
+                Arrays.fill(hDone, false);
                 enthalpies();
                 fail();
                 flows();
@@ -482,7 +483,7 @@ public final class TruthModel {
                 }
                 if (change == 0.0 || change < MIXING_TOLERANCE_J_PER_KG && pass > 0) {
                     if (change > 0.0) {
-                        java.util.Arrays.fill(hDone, false);
+                        Arrays.fill(hDone, false);
                         enthalpies();
                         flows();
                         fail();
