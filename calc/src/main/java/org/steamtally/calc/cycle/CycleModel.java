@@ -33,8 +33,11 @@ import org.steamtally.calc.steam.SteamRangeException;
  * {@link StateFix}: measured (p, T); saturated liquid or vapour at a measured p; p with a declared
  * quality; p with the enthalpy from the energy balance of one component against that component's
  * independent measurement (a condenser's cooling-water duty, the generator output of a turbine's
- * shaft, a pump's motor power, a steam generator's fuel heat); or an ideal reference, the entropy of
- * one state at the pressure of another, which carries no flow. Each state's expected phase follows
+ * shaft, a pump's motor power, a steam generator's fuel heat); p with the enthalpy of adiabatic
+ * mixing, h_out = Σ m_in h_in / m_out, for a mixer's outlet that names its own mixer (computed once
+ * the flows are solved; in every other heater or mixer balance its m h is replaced by the mixer's
+ * Σ m_in h_in, which keeps the flow system linear, and the mixer adds no energy balance of its own);
+ * or an ideal reference, the entropy of one state at the pressure of another, which carries no flow. Each state's expected phase follows
  * from the ports it sits on: turbine inlets, extractions and outlets, steam-generator outlets,
  * reheater ports and closed-heater steam inlets cannot be compressed liquid; pump ports,
  * closed-heater feedwater ports, steam-generator inlets and condenser outlets cannot be
@@ -99,6 +102,8 @@ public final class CycleModel {
     private static final int FIX_PX = 1;
     private static final int FIX_ENERGY_BALANCE = 2;
     private static final int FIX_ISENTROPIC = 3;
+    /** A mixer's outlet, its enthalpy from the adiabatic mixing of the mixer's inlets once the flows are known. */
+    private static final int FIX_MIXING = 4;
 
     private static final int EXPECT_ANY = 0;
     private static final int EXPECT_NOT_LIQUID = 1;
@@ -161,6 +166,8 @@ public final class CycleModel {
     private final int[] expect;
     private final String[] expectWhere;
     private final int[] balanceGroup;
+    /** For a state fixed by mixing, the mixer it leaves; -1 otherwise. */
+    private final int[] mixerOf;
     private final int[] isentropicFrom;
     private final int[] isentropicPressureOf;
     private final int[] flowIndex;
@@ -267,6 +274,7 @@ public final class CycleModel {
         expect = new int[stateCount];
         expectWhere = new String[stateCount];
         balanceGroup = filled(stateCount);
+        mixerOf = filled(stateCount);
         isentropicFrom = filled(stateCount);
         isentropicPressureOf = filled(stateCount);
         flowIndex = filled(stateCount);
@@ -545,6 +553,16 @@ public final class CycleModel {
                 problems.add(state, owner + ", which is not a component of unit \"" + unitId + "\"");
                 continue;
             }
+            if (kind[c] == C_MIXER) {
+                if (outlets[c][0] != j) {
+                    problems.add(state, owner + ", but only the outlet of a mixer takes its enthalpy from the"
+                            + " adiabatic mixing of the mixer's inlets");
+                    continue;
+                }
+                fix[j] = FIX_MIXING;
+                mixerOf[j] = c;
+                continue;
+            }
             int g = switch (kind[c]) {
                 case C_CONDENSER, C_GENERATOR -> componentGroup[c];
                 case C_TURBINE -> turbineGroup[c];
@@ -587,6 +605,20 @@ public final class CycleModel {
                                     + "\", itself fixed by an energy balance");
                         }
                     }
+                }
+            }
+        }
+
+        for (int j = 0; j < stateCount; j++) {
+            if (fix[j] != FIX_MIXING) {
+                continue;
+            }
+            for (int in : inlets[mixerOf[j]]) {
+                if (in >= 0 && (fix[in] == FIX_ENERGY_BALANCE || fix[in] == FIX_MIXING)) {
+                    problems.add(Owner.state(stateId[j]), "state \"" + stateId[j] + "\" takes its enthalpy from the mixing in \""
+                            + componentId[mixerOf[j]] + "\", whose inlet \"" + stateId[in] + "\" is itself fixed by "
+                            + (fix[in] == FIX_MIXING ? "mixing" : "an energy balance")
+                            + "; measure that inlet or the mixer's outlet instead");
                 }
             }
         }
@@ -923,8 +955,32 @@ public final class CycleModel {
                 addRow(states, signs, energy, sensorRows, labels, concat(inlets[c], outlets[c]),
                         signs(inlets[c].length, outlets[c].length), false, -1, "mass balance of \"" + componentId[c] + "\"");
             }
-            if (kind[c] == C_OPEN_HEATER || kind[c] == C_MIXER || kind[c] == C_CLOSED_HEATER) {
+            boolean mixingFixesOutlet = kind[c] == C_MIXER && fix[outlets[c][0]] == FIX_MIXING;
+            if (kind[c] == C_OPEN_HEATER || kind[c] == C_MIXER && !mixingFixesOutlet || kind[c] == C_CLOSED_HEATER) {
                 int[] all = concat(inlets[c], outlets[c]);
+                double[] allSigns = signs(inlets[c].length, outlets[c].length);
+                // A mixing outlet's m h is the sum of its mixer's inlets' m h: the same balance, linear in the flows.
+                int mixing = 0;
+                for (int j : all) {
+                    mixing += fix[j] == FIX_MIXING ? 1 : 0;
+                }
+                if (mixing > 0) {
+                    List<Integer> expanded = new ArrayList<>();
+                    List<Double> expandedSigns = new ArrayList<>();
+                    for (int k = 0; k < all.length; k++) {
+                        if (fix[all[k]] == FIX_MIXING) {
+                            for (int in : inlets[mixerOf[all[k]]]) {
+                                expanded.add(in);
+                                expandedSigns.add(allSigns[k]);
+                            }
+                        } else {
+                            expanded.add(all[k]);
+                            expandedSigns.add(allSigns[k]);
+                        }
+                    }
+                    all = expanded.stream().mapToInt(Integer::intValue).toArray();
+                    allSigns = expandedSigns.stream().mapToDouble(Double::doubleValue).toArray();
+                }
                 for (int j : all) {
                     if (fix[j] == FIX_ENERGY_BALANCE) {
                         problems.add(Owner.state(stateId[j]), "state \"" + stateId[j] + "\" takes its enthalpy from the energy balance of \""
@@ -933,7 +989,7 @@ public final class CycleModel {
                                 + componentId[c] + "\", which the flows are solved from");
                     }
                 }
-                addRow(states, signs, energy, sensorRows, labels, all, signs(inlets[c].length, outlets[c].length),
+                addRow(states, signs, energy, sensorRows, labels, all, allSigns,
                         true, -1, "energy balance of \"" + componentId[c] + "\"");
             }
         }
@@ -1075,6 +1131,7 @@ public final class CycleModel {
         checkPressureChanges();
         checkDirectPhases();
         solveFlows();
+        fixMixingStates();
         evaluateGroups();
         fixBalanceStates();
         fixReferenceStates();
@@ -1492,6 +1549,61 @@ public final class CycleModel {
                 dh[x] = (dE[x] - gradientPart[x] - k * h * dm[x]) / m;
             }
             checkExpectedPhase(j, "balanced");
+        }
+    }
+
+    /** Mixer outlets: h_out = Σ m_in h_in / m_out, adiabatic mixing, with its sensitivities. */
+    private void fixMixingStates() {
+        for (int j = 0; j < stateCount; j++) {
+            if (fix[j] != FIX_MIXING || !pressureKnown[j]) {
+                continue;
+            }
+            int c = mixerOf[j];
+            if (!flowKnown[j]) {
+                invalidate(j, "the mixing in \"" + componentId[c] + "\" needs its flow: " + flowWhy[j]);
+                continue;
+            }
+            if (!(flow[j] > 0.0)) {
+                invalidate(j, "the mixing in \"" + componentId[c] + "\" cannot give an enthalpy at zero flow");
+                continue;
+            }
+            double sum = 0.0;
+            String missing = null;
+            for (int in : inlets[c]) {
+                if (!stateOk[in]) {
+                    missing = "state \"" + stateId[in] + "\", which is invalid";
+                    break;
+                }
+                if (!flowKnown[in]) {
+                    missing = "the flow of state \"" + stateId[in] + "\": " + flowWhy[in];
+                    break;
+                }
+                sum += flow[in] * enthalpy[in];
+            }
+            if (missing != null) {
+                invalidate(j, "the mixing in \"" + componentId[c] + "\" needs " + missing);
+                continue;
+            }
+            double m = flow[j];
+            double h = sum / m;
+            try {
+                point.setPH(pressure[j], h);
+            } catch (SteamRangeException | IllegalStateException e) {
+                invalidate(j, "the mixing in \"" + componentId[c] + "\" gives h = " + h
+                        + " J/kg, for which there is no IF97 state: " + e.getMessage());
+                continue;
+            }
+            takePoint(j);
+            double[] dh = dEnthalpy[j];
+            double[] dm = dFlow[j];
+            for (int x = 0; x < inputCount; x++) {
+                double d = -h * dm[x];
+                for (int in : inlets[c]) {
+                    d += dFlow[in][x] * enthalpy[in] + flow[in] * dEnthalpy[in][x];
+                }
+                dh[x] = d / m;
+            }
+            checkExpectedPhase(j, "mixed");
         }
     }
 
