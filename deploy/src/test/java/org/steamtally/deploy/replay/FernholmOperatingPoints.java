@@ -65,6 +65,57 @@ final class FernholmOperatingPoints {
     }
 
     /**
+     * Unit 1 of {@code simple.yaml}: 9 MPa / 510 °C, 35 kg/s, condenser at 7 kPa, feed pump to
+     * 10.5 MPa; turbine efficiency 0.86, pump 0.78.
+     */
+    static ExampleOperatingPoint simple() {
+        double atmosphere = 100.8e3;                       // as in the file
+        double coolingWaterPa = 1.5e5 + atmosphere;        // 1.5 barg
+        double generatorEfficiency = 0.975;                // as declared in the file
+        double motorEfficiency = 0.95;
+        double boilerEfficiency = 0.89;
+        double heatingValue = 25.1e6;
+
+        double m = 35.0;
+        double pMain = 9.0e6;
+        double tMain = 783.15;
+        double pCondenser = 7e3;
+        double pFeed = 10.5e6;
+        double tCoolingIn = 291.15;
+        double tCoolingOut = 300.15;
+
+        double hMain = h(pMain, tMain);
+        double hExhaust = expand(hMain, s(pMain, tMain), pCondenser, 0.86, 320);
+        double hCondensate = hLiquid(pCondenser);
+        double hFeed = pump(hCondensate, sLiquid(pCondenser), pFeed, 0.78, 315);
+
+        double turbineWork = m * (hMain - hExhaust);
+        double pumpWork = m * (hFeed - hCondensate);
+        double heatAdded = m * (hMain - hFeed);
+        double rejected = m * (hExhaust - hCondensate);
+        double coolingWaterFlow = rejected / (h(coolingWaterPa, tCoolingOut) - h(coolingWaterPa, tCoolingIn));
+
+        Map<String, Double> r = new LinkedHashMap<>();
+        Map<String, String> u = new LinkedHashMap<>();
+        put(r, u, "PT-101", pMain / 1e6, "MPa");
+        put(r, u, "TT-101", celsius(tMain), "Cel");
+        put(r, u, "FT-101", m * 3.6, "t/h");
+        put(r, u, "PT-301", pCondenser / 1e3, "kPa");
+        put(r, u, "PT-302", pCondenser / 1e3, "kPa");
+        put(r, u, "PT-401", pFeed / 1e5, "bar");
+        put(r, u, "TT-401", celsius(temperaturePH(pFeed, hFeed, 315)), "Cel");
+        put(r, u, "FT-501", coolingWaterFlow, "kg/s");
+        put(r, u, "TT-501", celsius(tCoolingIn), "Cel");
+        put(r, u, "TT-502", celsius(tCoolingOut), "Cel");
+        put(r, u, "FT-900", heatAdded / (heatingValue * boilerEfficiency), "kg/s");
+        put(r, u, "JT-001", turbineWork * generatorEfficiency / 1e6, "MW");
+        put(r, u, "JT-401", pumpWork / motorEfficiency / 1e3, "kW");
+        return new ExampleOperatingPoint("simple.yaml", "fernholm/unit1/", r, u,
+                List.of("cycle", "turbine+generator", "boiler+fuel", "feed_pump+motor"),
+                new ExampleOperatingPoint.Figures(heatAdded, rejected, turbineWork, pumpWork));
+    }
+
+    /**
      * Unit 3 of {@code regenerative.yaml}: 12.5 MPa / 540 °C, 125 kg/s, reheat to 540 °C at 2.6 MPa,
      * an HP heater draining backward to the deaerator, an LP heater whose drain is pumped forward
      * into the deaerator, condenser at 8 kPa. HP section efficiency 0.86, LP section 0.88 (on one

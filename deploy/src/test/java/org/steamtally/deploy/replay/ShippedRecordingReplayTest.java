@@ -27,7 +27,7 @@ import org.steamtally.dashboard.json.ResultJson;
 import org.steamtally.deploy.CommandRun;
 
 /**
- * The recordings shipped beside the reheat and regenerative examples ({@code deploy/examples/*-readings.jsonl})
+ * The recordings shipped beside the example plants ({@code deploy/examples/*-readings.jsonl})
  * hold a consistent operating point of our own, built by hand in {@link FernholmOperatingPoints} with the
  * independent IF97; replayed end to end through the launcher they must reproduce the hand-built cycle and
  * close every balance, and their result records must match the golden files beside them.
@@ -45,7 +45,8 @@ class ShippedRecordingReplayTest {
     private static final ObjectMapper JSON = new ObjectMapper();
 
     static Stream<ExampleOperatingPoint> examples() {
-        return Stream.of(FernholmOperatingPoints.reheat(), FernholmOperatingPoints.regenerative());
+        return Stream.of(FernholmOperatingPoints.simple(), FernholmOperatingPoints.reheat(),
+                FernholmOperatingPoints.regenerative());
     }
 
     @BeforeAll
