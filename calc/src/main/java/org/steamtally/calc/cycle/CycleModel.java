@@ -37,7 +37,8 @@ import org.steamtally.calc.steam.SteamRangeException;
  * mixing, h_out = Σ m_in h_in / m_out, for a mixer's outlet that names its own mixer (computed once
  * the flows are solved; in every other heater or mixer balance its m h is replaced by the mixer's
  * Σ m_in h_in, which keeps the flow system linear, and the mixer adds no energy balance of its own);
- * or an ideal reference, the entropy of one state at the pressure of another, which carries no flow. Each state's expected phase follows
+ * or an ideal reference, the entropy of one state at the pressure of another, which carries no flow.
+ * Each state's expected phase follows
  * from the ports it sits on: turbine inlets, extractions and outlets, steam-generator outlets,
  * reheater ports and closed-heater steam inlets cannot be compressed liquid; pump ports,
  * closed-heater feedwater ports, steam-generator inlets and condenser outlets cannot be
@@ -395,7 +396,8 @@ public final class CycleModel {
             if (ideal.isPresent()) {
                 Integer r = stateIndex.get(ideal.get());
                 if (r == null) {
-                    problems.add(owner, owner + ": ideal outlet \"" + ideal.get() + "\" is not a state of unit \"" + unitId + "\"");
+                    problems.add(owner, owner + ": ideal outlet \"" + ideal.get() + "\" is not a state of unit \""
+                            + unitId + "\"");
                 } else if (!states.get(r).isReference()) {
                     problems.add(owner, owner + ": ideal outlet \"" + ideal.get()
                             + "\" must be an isentropic reference state, not a flowing state");
@@ -410,13 +412,15 @@ public final class CycleModel {
             }
             Owner owner = Owner.state(stateId[j]);
             if (leaves[j] == 0) {
-                problems.add(owner, owner + " is the outlet of no component: every flowing state leaves exactly one component");
+                problems.add(owner, owner
+                        + " is the outlet of no component: every flowing state leaves exactly one component");
             } else if (leaves[j] > 1) {
                 problems.add(owner, owner + " is the outlet of " + leaves[j] + " components " + leftBy.get(j)
                         + ": every flowing state leaves exactly one component");
             }
             if (enters[j] == 0) {
-                problems.add(owner, owner + " is the inlet of no component: every flowing state enters exactly one component");
+                problems.add(owner, owner
+                        + " is the inlet of no component: every flowing state enters exactly one component");
             } else if (enters[j] > 1) {
                 problems.add(owner, owner + " is the inlet of " + enters[j] + " components " + enteredBy.get(j)
                         + ": every flowing state enters exactly one component");
@@ -451,7 +455,8 @@ public final class CycleModel {
                         continue;
                     }
                     if (turbineGroup[t] >= 0) {
-                        problems.add(owner, "turbine section \"" + turbine + "\" is on the shaft of more than one generator");
+                        problems.add(owner, "turbine section \"" + turbine
+                                + "\" is on the shaft of more than one generator");
                         continue;
                     }
                     turbineGroup[t] = gKind.size();
@@ -481,7 +486,8 @@ public final class CycleModel {
                 int tOut = sensor(sensorIndex, cw.outletTemperatureSensor(), Quantity.TEMPERATURE, owner,
                         "cooling-water outlet temperature", problems);
                 if (!(cw.pressurePa() > 0.0 && cw.pressurePa() <= Steam.MAX_PRESSURE_PA)) {
-                    problems.add(owner, owner + ": cooling-water pressure " + cw.pressurePa() + " Pa is outside 0 Pa to 100 MPa");
+                    problems.add(owner, owner + ": cooling-water pressure " + cw.pressurePa()
+                            + " Pa is outside 0 Pa to 100 MPa");
                 }
                 componentGroup[c] = gKind.size();
                 addGroup(gKind, gComponents, gSensors, gConstants, gPressure, gClosure, gOwner, G_COOLING_WATER,
@@ -600,7 +606,8 @@ public final class CycleModel {
                 for (int[] ports : new int[][] {inlets[comp], outlets[comp]}) {
                     for (int j : ports) {
                         if (j >= 0 && j != groupFixes[g] && fix[j] == FIX_ENERGY_BALANCE) {
-                            problems.add(Owner.state(stateId[groupFixes[g]]), "state \"" + stateId[groupFixes[g]] + "\" is fixed by the energy balance of \""
+                            problems.add(Owner.state(stateId[groupFixes[g]]), "state \"" + stateId[groupFixes[g]]
+                                    + "\" is fixed by the energy balance of \""
                                     + groupOwner[g] + "\", which needs state \"" + stateId[j]
                                     + "\", itself fixed by an energy balance");
                         }
@@ -615,7 +622,8 @@ public final class CycleModel {
             }
             for (int in : inlets[mixerOf[j]]) {
                 if (in >= 0 && (fix[in] == FIX_ENERGY_BALANCE || fix[in] == FIX_MIXING)) {
-                    problems.add(Owner.state(stateId[j]), "state \"" + stateId[j] + "\" takes its enthalpy from the mixing in \""
+                    problems.add(Owner.state(stateId[j]), "state \"" + stateId[j]
+                            + "\" takes its enthalpy from the mixing in \""
                             + componentId[mixerOf[j]] + "\", whose inlet \"" + stateId[in] + "\" is itself fixed by "
                             + (fix[in] == FIX_MIXING ? "mixing" : "an energy balance")
                             + "; measure that inlet or the mixer's outlet instead");
@@ -983,7 +991,8 @@ public final class CycleModel {
                 }
                 for (int j : all) {
                     if (fix[j] == FIX_ENERGY_BALANCE) {
-                        problems.add(Owner.state(stateId[j]), "state \"" + stateId[j] + "\" takes its enthalpy from the energy balance of \""
+                        problems.add(Owner.state(stateId[j]), "state \"" + stateId[j]
+                                + "\" takes its enthalpy from the energy balance of \""
                                 + groupOwner[balanceGroup[j]]
                                 + "\" after the flows are solved, so it cannot enter the energy balance of \""
                                 + componentId[c] + "\", which the flows are solved from");
@@ -1066,7 +1075,8 @@ public final class CycleModel {
                     "the mass and energy balances alone leave no flow free")) {
                 // The homogeneous balances have only the zero solution: the surplus is an energy
                 // balance, not the flow sensor that happens to come after it.
-                problems.add(Owner.unit(unitId), "flows are over-determined: the mass and energy balances alone leave no flow free"
+                problems.add(Owner.unit(unitId), "flows are over-determined: the mass and energy balances alone"
+                        + " leave no flow free"
                         + " (they would force every flow to zero), so one of the energy balances of "
                         + energyLabels + " is redundant, for example a mixer or heater all of whose flows the"
                         + " other balances already fix");
