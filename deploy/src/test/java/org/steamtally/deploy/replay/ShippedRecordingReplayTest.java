@@ -2,6 +2,7 @@ package org.steamtally.deploy.replay;
 
 import static org.junit.jupiter.api.Assertions.assertAll;
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
@@ -147,6 +148,66 @@ class ShippedRecordingReplayTest {
             assertTrue(differences.isEmpty(), point.resultsFile() + " record " + (i + 1) + " differs (regenerate it if"
                     + " the change is intended, see the class comment):\n  " + String.join("\n  ", differences));
         }
+    }
+
+    @org.junit.jupiter.api.Test
+    void badReadingsInTheRecordingInvalidateWhatDependsOnThemAndSpareTheRest(@TempDir Path dir) throws IOException {
+        // The regenerative recording with two faults of our own making: at second 2 the main-steam
+        // thermocouple reads 300 degC, below saturation at 12.5 MPa (327.8 degC, IAPWS-IF97 eq. 31;
+        // value recalled from steam tables); at second 3 the cooling water's outlet thermometer reads
+        // 17.9 degC, just below its 18 degC inlet, so the condenser would give heat to the steam and
+        // the exhaust enthalpy from that balance falls below saturated liquid. Each lands in the snapshot one
+        // second later. (A reading outside its plausible range would not do here: replay drops it and
+        // the sensor's previous reading, still fresh, stands in.)
+        String recording = Files.readString(EXAMPLES.resolve("regenerative-readings.jsonl"));
+        StringBuilder faulty = new StringBuilder();
+        for (String line : recording.split("\n")) {
+            if (line.contains("/TT-101\",\"ts\":\"2025-12-02T00:00:02.")) {
+                line = line.replaceFirst("\"value\":[^,]*,", "\"value\":300,");
+            } else if (line.contains("/TT-502\",\"ts\":\"2025-12-02T00:00:03.")) {
+                line = line.replaceFirst("\"value\":[^,]*,", "\"value\":17.9,");
+            }
+            faulty.append(line).append('\n');
+        }
+        Path readings = dir.resolve("faulty.jsonl");
+        Files.writeString(readings, faulty);
+        Path out = dir.resolve("results.jsonl");
+        CommandRun run = CommandRun.of(new String[] {"replay", "--config", EXAMPLES.resolve("regenerative.yaml").toString(),
+                "--in", readings.toString(), "--out", out.toString()});
+        assertTrue(run.err().contains("4 snapshots: 2 with all states valid, 2 with invalid states"), run.err());
+        String text = Files.readString(out);
+        assertFalse(text.contains("NaN") || text.contains("Infinity"), "no NaN or infinity reaches the output");
+        List<UnitResult> results = text.lines().map(ResultJson::read).toList();
+        assertEquals(4, results.size());
+        for (int i : new int[] {0, 1}) {
+            assertTrue(results.get(i).states().stream().allMatch(StateResult::valid), "snapshot " + i);
+        }
+
+        UnitResult cold = results.get(2);
+        StateResult mainSteam = state(cold, "main_steam");
+        assertFalse(mainSteam.valid());
+        assertTrue(mainSteam.reason().orElseThrow().contains("must be vapour or wet steam, but the measured state is"
+                + " liquid"), mainSteam.reason().orElseThrow());
+        assertFalse(component(cold, "hp_turbine").valid(), "the HP turbine takes its inlet from main steam");
+        assertTrue(cold.cycle().thermalEfficiency().isEmpty(), "no efficiency without the heat added");
+        assertTrue(state(cold, "deaerator_outlet").valid(), "states that do not depend on main steam are computed");
+        assertTrue(state(cold, "lp_exhaust").valid(), "the LP side does not depend on main steam");
+
+        UnitResult wet = results.get(3);
+        StateResult exhaust = state(wet, "lp_exhaust");
+        assertFalse(exhaust.valid());
+        assertTrue(exhaust.reason().orElseThrow().contains("must be vapour or wet steam"),
+                exhaust.reason().orElseThrow());
+        assertTrue(state(wet, "main_steam").valid(), "main steam is back to normal");
+        assertTrue(wet.cycle().heatAddedW().isPresent(), "heat added does not depend on the condenser");
+    }
+
+    private static StateResult state(UnitResult result, String id) {
+        return result.states().stream().filter(s -> s.id().equals(id)).findFirst().orElseThrow();
+    }
+
+    private static org.steamtally.calc.cycle.ComponentResult component(UnitResult result, String id) {
+        return result.components().stream().filter(c -> c.id().equals(id)).findFirst().orElseThrow();
     }
 
     private static CommandRun replay(ExampleOperatingPoint point, Path out) {
