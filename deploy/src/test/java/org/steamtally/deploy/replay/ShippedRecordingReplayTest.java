@@ -157,13 +157,16 @@ class ShippedRecordingReplayTest {
         // value recalled from steam tables); at second 3 the cooling water's outlet thermometer reads
         // 17.9 degC, just below its 18 degC inlet, so the condenser would give heat to the steam and
         // the exhaust enthalpy from that balance falls below saturated liquid. Each lands in the snapshot one
-        // second later. (A reading outside its plausible range would not do here: replay drops it and
-        // the sensor's previous reading, still fresh, stands in.)
+        // second later. At second 3 the cooling-water meter also reads 8000 kg/s, above its plausible
+        // 7000: replay reports that reading and drops it, and the meter's previous reading, still
+        // fresh, stands in.
         String recording = Files.readString(EXAMPLES.resolve("regenerative-readings.jsonl"));
         StringBuilder faulty = new StringBuilder();
         for (String line : recording.split("\n")) {
             if (line.contains("/TT-101\",\"ts\":\"2025-12-02T00:00:02.")) {
                 line = line.replaceFirst("\"value\":[^,]*,", "\"value\":300,");
+            } else if (line.contains("/FT-501\",\"ts\":\"2025-12-02T00:00:03.")) {
+                line = line.replaceFirst("\"value\":[^,]*,", "\"value\":8000,");
             } else if (line.contains("/TT-502\",\"ts\":\"2025-12-02T00:00:03.")) {
                 line = line.replaceFirst("\"value\":[^,]*,", "\"value\":17.9,");
             }
@@ -175,6 +178,8 @@ class ShippedRecordingReplayTest {
         CommandRun run = CommandRun.of(new String[] {"replay", "--config", EXAMPLES.resolve("regenerative.yaml").toString(),
                 "--in", readings.toString(), "--out", out.toString()});
         assertTrue(run.err().contains("4 snapshots: 2 with all states valid, 2 with invalid states"), run.err());
+        assertTrue(run.err().contains(": sensor FT-501 reads 8000.0 kg/s, outside its plausible range 0.0 to 7000.0 kg/s;"
+                + " reading not used"), run.err());
         String text = Files.readString(out);
         assertFalse(text.contains("NaN") || text.contains("Infinity"), "no NaN or infinity reaches the output");
         List<UnitResult> results = text.lines().map(ResultJson::read).toList();
