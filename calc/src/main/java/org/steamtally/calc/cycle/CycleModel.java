@@ -1066,6 +1066,8 @@ public final class CycleModel {
         }
         boolean balancesAloneFixEverything = false;
         boolean firstSensorRow = true;
+        // The energy balance that completed the rank, where a surplus among them is best shown.
+        String lastEnergyLabel = null;
         for (int r : order) {
             if (sensorRows.get(r) >= 0 && firstSensorRow) {
                 firstSensorRow = false;
@@ -1075,7 +1077,9 @@ public final class CycleModel {
                     "the mass and energy balances alone leave no flow free")) {
                 // The homogeneous balances have only the zero solution: the surplus is an energy
                 // balance, not the flow sensor that happens to come after it.
-                problems.add(Owner.unit(unitId), "flows are over-determined: the mass and energy balances alone"
+                Owner surplus = lastEnergyLabel == null ? Owner.unit(unitId)
+                        : Owner.component(componentOfRow(lastEnergyLabel));
+                problems.add(surplus, "flows are over-determined: the mass and energy balances alone"
                         + " leave no flow free"
                         + " (they would force every flow to zero), so one of the energy balances of "
                         + energyLabels + " is redundant, for example a mixer or heater all of whose flows the"
@@ -1088,6 +1092,9 @@ public final class CycleModel {
             }
             if (basis.add(row)) {
                 chosen.add(r);
+                if (energy.get(r)) {
+                    lastEnergyLabel = labels.get(r);
+                }
             } else if (sensorRows.get(r) >= 0 && !balancesAloneFixEverything) {
                 problems.add(Owner.state(stateId[states.get(r)[0]]), "flows are over-determined: " + labels.get(r)
                         + " measures a flow that the balances and the flow sensors before it already fix; redundant"
