@@ -1083,7 +1083,8 @@ public final class CycleModel {
                         + " leave no flow free"
                         + " (they would force every flow to zero), so one of the energy balances of "
                         + energyLabels + " is redundant, for example a mixer or heater all of whose flows the"
-                        + " other balances already fix");
+                        + " other balances already fix; a mixer's outlet can instead take its enthalpy from the"
+                        + " mixer's own energy balance, unmeasured");
             }
             double[] row = new double[flowCount];
             int[] js = states.get(r);
