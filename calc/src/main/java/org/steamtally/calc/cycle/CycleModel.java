@@ -33,8 +33,12 @@ import org.steamtally.calc.steam.SteamRangeException;
  * {@link StateFix}: measured (p, T); saturated liquid or vapour at a measured p; p with a declared
  * quality; p with the enthalpy from the energy balance of one component against that component's
  * independent measurement (a condenser's cooling-water duty, the generator output of a turbine's
- * shaft, a pump's motor power, a steam generator's fuel heat); or an ideal reference, the entropy of
- * one state at the pressure of another, which carries no flow. Each state's expected phase follows
+ * shaft, a pump's motor power, a steam generator's fuel heat); p with the enthalpy of adiabatic
+ * mixing, h_out = Σ m_in h_in / m_out, for a mixer's outlet that names its own mixer (computed once
+ * the flows are solved; in every other heater or mixer balance its m h is replaced by the mixer's
+ * Σ m_in h_in, which keeps the flow system linear, and the mixer adds no energy balance of its own);
+ * or an ideal reference, the entropy of one state at the pressure of another, which carries no flow.
+ * Each state's expected phase follows
  * from the ports it sits on: turbine inlets, extractions and outlets, steam-generator outlets,
  * reheater ports and closed-heater steam inlets cannot be compressed liquid; pump ports,
  * closed-heater feedwater ports, steam-generator inlets and condenser outlets cannot be
@@ -99,6 +103,8 @@ public final class CycleModel {
     private static final int FIX_PX = 1;
     private static final int FIX_ENERGY_BALANCE = 2;
     private static final int FIX_ISENTROPIC = 3;
+    /** A mixer's outlet, its enthalpy from the adiabatic mixing of the mixer's inlets once the flows are known. */
+    private static final int FIX_MIXING = 4;
 
     private static final int EXPECT_ANY = 0;
     private static final int EXPECT_NOT_LIQUID = 1;
@@ -161,6 +167,8 @@ public final class CycleModel {
     private final int[] expect;
     private final String[] expectWhere;
     private final int[] balanceGroup;
+    /** For a state fixed by mixing, the mixer it leaves; -1 otherwise. */
+    private final int[] mixerOf;
     private final int[] isentropicFrom;
     private final int[] isentropicPressureOf;
     private final int[] flowIndex;
@@ -245,14 +253,14 @@ public final class CycleModel {
         this.siteId = Objects.requireNonNull(siteId, "siteId");
         this.unitId = unit.id();
         this.deadStateTemperatureK = unit.deadState().temperatureK();
-        List<String> problems = new ArrayList<>();
+        Problems problems = new Problems();
 
         sensors = unit.sensors().toArray(new Sensor[0]);
         sensorCount = sensors.length;
         Map<String, Integer> sensorIndex = new HashMap<>();
         for (int i = 0; i < sensorCount; i++) {
             if (sensorIndex.putIfAbsent(sensors[i].id(), i) != null) {
-                problems.add("sensor \"" + sensors[i].id() + "\" is declared twice");
+                problems.add(Owner.sensor(sensors[i].id()), "sensor \"" + sensors[i].id() + "\" is declared twice");
             }
         }
 
@@ -267,6 +275,7 @@ public final class CycleModel {
         expect = new int[stateCount];
         expectWhere = new String[stateCount];
         balanceGroup = filled(stateCount);
+        mixerOf = filled(stateCount);
         isentropicFrom = filled(stateCount);
         isentropicPressureOf = filled(stateCount);
         flowIndex = filled(stateCount);
@@ -274,14 +283,14 @@ public final class CycleModel {
         for (int j = 0; j < stateCount; j++) {
             stateId[j] = states.get(j).id();
             if (stateIndex.putIfAbsent(stateId[j], j) != null) {
-                problems.add("state \"" + stateId[j] + "\" is declared twice");
+                problems.add(Owner.state(stateId[j]), "state \"" + stateId[j] + "\" is declared twice");
             }
         }
         int flowing = 0;
         String[] balanceComponentName = new String[stateCount];
         for (int j = 0; j < stateCount; j++) {
             StateDefinition state = states.get(j);
-            String owner = "state \"" + stateId[j] + "\"";
+            Owner owner = Owner.state(stateId[j]);
             StateFix f = state.fix();
             if (f instanceof StateFix.MeasuredPressureTemperature pt) {
                 fix[j] = FIX_PT;
@@ -313,7 +322,7 @@ public final class CycleModel {
             }
             if (state.isReference()) {
                 if (state.flowSensor().isPresent()) {
-                    problems.add(owner + " is an ideal reference state, which carries no flow, but has flow sensor \""
+                    problems.add(owner, owner + " is an ideal reference state, which carries no flow, but has flow sensor \""
                             + state.flowSensor().get() + "\"");
                 }
             } else {
@@ -357,13 +366,13 @@ public final class CycleModel {
             componentId[c] = component.id();
             componentType[c] = component.type();
             if (componentIndex.putIfAbsent(component.id(), c) != null) {
-                problems.add("component \"" + component.id() + "\" is declared twice");
+                problems.add(Owner.component(component.id()), "component \"" + component.id() + "\" is declared twice");
             }
             kind[c] = kindOf(component);
             if (kind[c] == C_STEAM_GENERATOR) {
                 steamGenerators++;
             }
-            String owner = "component \"" + component.id() + "\"";
+            Owner owner = Owner.component(component.id());
             inlets[c] = ports(component.inlets(), stateIndex, states, owner, problems);
             outlets[c] = ports(component.outlets(), stateIndex, states, owner, problems);
             for (int j : inlets[c]) {
@@ -387,9 +396,10 @@ public final class CycleModel {
             if (ideal.isPresent()) {
                 Integer r = stateIndex.get(ideal.get());
                 if (r == null) {
-                    problems.add(owner + ": ideal outlet \"" + ideal.get() + "\" is not a state of unit \"" + unitId + "\"");
+                    problems.add(owner, owner + ": ideal outlet \"" + ideal.get() + "\" is not a state of unit \""
+                            + unitId + "\"");
                 } else if (!states.get(r).isReference()) {
-                    problems.add(owner + ": ideal outlet \"" + ideal.get()
+                    problems.add(owner, owner + ": ideal outlet \"" + ideal.get()
                             + "\" must be an isentropic reference state, not a flowing state");
                 } else {
                     idealOutlet[c] = r;
@@ -400,17 +410,19 @@ public final class CycleModel {
             if (flowIndex[j] < 0) {
                 continue;
             }
-            String owner = "state \"" + stateId[j] + "\"";
+            Owner owner = Owner.state(stateId[j]);
             if (leaves[j] == 0) {
-                problems.add(owner + " is the outlet of no component: every flowing state leaves exactly one component");
+                problems.add(owner, owner
+                        + " is the outlet of no component: every flowing state leaves exactly one component");
             } else if (leaves[j] > 1) {
-                problems.add(owner + " is the outlet of " + leaves[j] + " components " + leftBy.get(j)
+                problems.add(owner, owner + " is the outlet of " + leaves[j] + " components " + leftBy.get(j)
                         + ": every flowing state leaves exactly one component");
             }
             if (enters[j] == 0) {
-                problems.add(owner + " is the inlet of no component: every flowing state enters exactly one component");
+                problems.add(owner, owner
+                        + " is the inlet of no component: every flowing state enters exactly one component");
             } else if (enters[j] > 1) {
-                problems.add(owner + " is the inlet of " + enters[j] + " components " + enteredBy.get(j)
+                problems.add(owner, owner + " is the inlet of " + enters[j] + " components " + enteredBy.get(j)
                         + ": every flowing state enters exactly one component");
             }
         }
@@ -431,19 +443,20 @@ public final class CycleModel {
         int[] steamGeneratorGroup = filled(componentCount);
         for (int c = 0; c < componentCount; c++) {
             Component component = components.get(c);
-            String owner = "component \"" + component.id() + "\"";
+            Owner owner = Owner.component(component.id());
             if (component instanceof Component.Generator gen) {
                 List<Integer> shaft = new ArrayList<>();
                 StringBuilder closureId = new StringBuilder();
                 for (String turbine : gen.turbines()) {
                     Integer t = componentIndex.get(turbine);
                     if (t == null || kind[t] != C_TURBINE) {
-                        problems.add("generator \"" + gen.id() + "\": \"" + turbine
+                        problems.add(owner, "generator \"" + gen.id() + "\": \"" + turbine
                                 + "\" is not a turbine section of unit \"" + unitId + "\"");
                         continue;
                     }
                     if (turbineGroup[t] >= 0) {
-                        problems.add("turbine section \"" + turbine + "\" is on the shaft of more than one generator");
+                        problems.add(owner, "turbine section \"" + turbine
+                                + "\" is on the shaft of more than one generator");
                         continue;
                     }
                     turbineGroup[t] = gKind.size();
@@ -451,10 +464,10 @@ public final class CycleModel {
                     closureId.append(turbine).append('+');
                 }
                 if (shaft.isEmpty()) {
-                    problems.add("generator \"" + gen.id() + "\" drives no turbine section");
+                    problems.add(owner, "generator \"" + gen.id() + "\" drives no turbine section");
                 }
                 int power = sensor(sensorIndex, gen.powerSensor(), Quantity.POWER, owner, "power", problems);
-                checkFraction(gen.efficiency(), owner + ": efficiency", problems);
+                checkFraction(gen.efficiency(), owner, "efficiency", problems);
                 componentGroup[c] = gKind.size();
                 addGroup(gKind, gComponents, gSensors, gConstants, gPressure, gClosure, gOwner, G_GENERATOR,
                         shaft.stream().mapToInt(Integer::intValue).toArray(), new int[] {power},
@@ -464,7 +477,7 @@ public final class CycleModel {
         }
         for (int c = 0; c < componentCount; c++) {
             Component component = components.get(c);
-            String owner = "component \"" + component.id() + "\"";
+            Owner owner = Owner.component(component.id());
             if (component instanceof Component.Condenser cond && cond.coolingWater().isPresent()) {
                 CoolingWater cw = cond.coolingWater().get();
                 int m = sensor(sensorIndex, cw.flowSensor(), Quantity.MASS_FLOW, owner, "cooling-water flow", problems);
@@ -473,7 +486,8 @@ public final class CycleModel {
                 int tOut = sensor(sensorIndex, cw.outletTemperatureSensor(), Quantity.TEMPERATURE, owner,
                         "cooling-water outlet temperature", problems);
                 if (!(cw.pressurePa() > 0.0 && cw.pressurePa() <= Steam.MAX_PRESSURE_PA)) {
-                    problems.add(owner + ": cooling-water pressure " + cw.pressurePa() + " Pa is outside 0 Pa to 100 MPa");
+                    problems.add(owner, owner + ": cooling-water pressure " + cw.pressurePa()
+                            + " Pa is outside 0 Pa to 100 MPa");
                 }
                 componentGroup[c] = gKind.size();
                 addGroup(gKind, gComponents, gSensors, gConstants, gPressure, gClosure, gOwner, G_COOLING_WATER,
@@ -482,7 +496,7 @@ public final class CycleModel {
             } else if (component instanceof Component.Pump pump && pump.motor().isPresent()) {
                 MotorMeasurement motor = pump.motor().get();
                 int power = sensor(sensorIndex, motor.powerSensor(), Quantity.POWER, owner, "motor power", problems);
-                checkFraction(motor.efficiency(), owner + ": motor efficiency", problems);
+                checkFraction(motor.efficiency(), owner, "motor efficiency", problems);
                 pumpGroup[c] = gKind.size();
                 addGroup(gKind, gComponents, gSensors, gConstants, gPressure, gClosure, gOwner, G_MOTOR,
                         new int[] {c}, new int[] {power}, constantsOf(constants, constantU, motor.efficiency()), 0.0,
@@ -491,10 +505,10 @@ public final class CycleModel {
                 FuelMeasurement fuel = sg.fuel().get();
                 int m = sensor(sensorIndex, fuel.flowSensor(), Quantity.MASS_FLOW, owner, "fuel flow", problems);
                 if (!(fuel.heatingValueJPerKg().value() > 0.0)) {
-                    problems.add(owner + ": fuel heating value must be positive, was "
+                    problems.add(owner, owner + ": fuel heating value must be positive, was "
                             + fuel.heatingValueJPerKg().value() + " J/kg");
                 }
-                checkFraction(fuel.boilerEfficiency(), owner + ": boiler efficiency", problems);
+                checkFraction(fuel.boilerEfficiency(), owner, "boiler efficiency", problems);
                 List<Integer> heated = new ArrayList<>();
                 heated.add(c);
                 if (steamGenerators == 1) {
@@ -538,10 +552,21 @@ public final class CycleModel {
                 continue;
             }
             String name = balanceComponentName[j];
+            Owner state = Owner.state(stateId[j]);
             String owner = "state \"" + stateId[j] + "\" is fixed by the energy balance of \"" + name + "\"";
             Integer c = componentIndex.get(name);
             if (c == null) {
-                problems.add(owner + ", which is not a component of unit \"" + unitId + "\"");
+                problems.add(state, owner + ", which is not a component of unit \"" + unitId + "\"");
+                continue;
+            }
+            if (kind[c] == C_MIXER) {
+                if (outlets[c][0] != j) {
+                    problems.add(state, owner + ", but only the outlet of a mixer takes its enthalpy from the"
+                            + " adiabatic mixing of the mixer's inlets");
+                    continue;
+                }
+                fix[j] = FIX_MIXING;
+                mixerOf[j] = c;
                 continue;
             }
             int g = switch (kind[c]) {
@@ -552,11 +577,11 @@ public final class CycleModel {
                 default -> -1;
             };
             if (g < 0) {
-                problems.add(owner + ", which has no independent measurement");
+                problems.add(state, owner + ", which has no independent measurement");
                 continue;
             }
             if (groupFixes[g] >= 0) {
-                problems.add("the energy balance of \"" + groupOwner[g] + "\" is asked to fix both state \""
+                problems.add(state, "the energy balance of \"" + groupOwner[g] + "\" is asked to fix both state \""
                         + stateId[groupFixes[g]] + "\" and state \"" + stateId[j] + "\"; one balance fixes one state");
                 continue;
             }
@@ -565,7 +590,7 @@ public final class CycleModel {
                 coefficient += count(outlets[comp], j) - count(inlets[comp], j);
             }
             if (coefficient == 0) {
-                problems.add(owner + ", but it is not a port of "
+                problems.add(state, owner + ", but it is not a port of "
                         + (groupKind[g] == G_GENERATOR ? "the turbine sections on that shaft" : "that component"));
                 continue;
             }
@@ -581,11 +606,27 @@ public final class CycleModel {
                 for (int[] ports : new int[][] {inlets[comp], outlets[comp]}) {
                     for (int j : ports) {
                         if (j >= 0 && j != groupFixes[g] && fix[j] == FIX_ENERGY_BALANCE) {
-                            problems.add("state \"" + stateId[groupFixes[g]] + "\" is fixed by the energy balance of \""
+                            problems.add(Owner.state(stateId[groupFixes[g]]), "state \"" + stateId[groupFixes[g]]
+                                    + "\" is fixed by the energy balance of \""
                                     + groupOwner[g] + "\", which needs state \"" + stateId[j]
                                     + "\", itself fixed by an energy balance");
                         }
                     }
+                }
+            }
+        }
+
+        for (int j = 0; j < stateCount; j++) {
+            if (fix[j] != FIX_MIXING) {
+                continue;
+            }
+            for (int in : inlets[mixerOf[j]]) {
+                if (in >= 0 && (fix[in] == FIX_ENERGY_BALANCE || fix[in] == FIX_MIXING)) {
+                    problems.add(Owner.state(stateId[j]), "state \"" + stateId[j]
+                            + "\" takes its enthalpy from the mixing in \""
+                            + componentId[mixerOf[j]] + "\", whose inlet \"" + stateId[in] + "\" is itself fixed by "
+                            + (fix[in] == FIX_MIXING ? "mixing" : "an energy balance")
+                            + "; measure that inlet or the mixer's outlet instead");
                 }
             }
         }
@@ -618,7 +659,7 @@ public final class CycleModel {
             rowSensor = new int[0];
         }
         if (!problems.isEmpty()) {
-            throw new CycleModelException(unitId, problems);
+            throw CycleModelException.located(unitId, problems.list);
         }
 
         // ------------------------------------------------------------ scratch
@@ -692,6 +733,58 @@ public final class CycleModel {
 
     // ================================================================ compile helpers
 
+    /** The element a compile problem is about; its text is how messages name it. */
+    private record Owner(CycleModelException.Element element, String id) {
+        static Owner unit(String id) {
+            return new Owner(CycleModelException.Element.UNIT, id);
+        }
+
+        static Owner sensor(String id) {
+            return new Owner(CycleModelException.Element.SENSOR, id);
+        }
+
+        static Owner state(String id) {
+            return new Owner(CycleModelException.Element.STATE, id);
+        }
+
+        static Owner component(String id) {
+            return new Owner(CycleModelException.Element.COMPONENT, id);
+        }
+
+        @Override
+        public String toString() {
+            return switch (element) {
+                case UNIT -> "unit \"" + id + "\"";
+                case SENSOR -> "sensor \"" + id + "\"";
+                case STATE -> "state \"" + id + "\"";
+                case COMPONENT -> "component \"" + id + "\"";
+            };
+        }
+    }
+
+    /** Compile problems, each with the element it is about. */
+    private static final class Problems {
+        final List<CycleModelException.Problem> list = new ArrayList<>();
+
+        void add(Owner owner, String message) {
+            list.add(new CycleModelException.Problem(owner.element(), owner.id(), message));
+        }
+
+        boolean isEmpty() {
+            return list.isEmpty();
+        }
+
+        boolean anyContains(String text) {
+            return list.stream().anyMatch(p -> p.message().contains(text));
+        }
+    }
+
+    /** The component id in a row label {@code energy balance of "id"}. */
+    private static String componentOfRow(String label) {
+        int open = label.indexOf('"');
+        return label.substring(open + 1, label.lastIndexOf('"'));
+    }
+
     private static int[] filled(int n) {
         int[] a = new int[n];
         Arrays.fill(a, -1);
@@ -708,45 +801,45 @@ public final class CycleModel {
         return n;
     }
 
-    private int sensor(Map<String, Integer> index, String id, Quantity quantity, String owner, String role,
-                       List<String> problems) {
+    private int sensor(Map<String, Integer> index, String id, Quantity quantity, Owner owner, String role,
+                       Problems problems) {
         Integer i = index.get(id);
         if (i == null) {
-            problems.add(owner + ": " + role + " sensor \"" + id + "\" is not a sensor of unit \"" + unitId + "\"");
+            problems.add(owner, owner + ": " + role + " sensor \"" + id + "\" is not a sensor of unit \"" + unitId + "\"");
             return -1;
         }
         if (sensors[i].quantity() != quantity) {
-            problems.add(owner + ": " + role + " sensor \"" + id + "\" measures " + sensors[i].quantity()
+            problems.add(owner, owner + ": " + role + " sensor \"" + id + "\" measures " + sensors[i].quantity()
                     + ", not " + quantity);
             return -1;
         }
         return i;
     }
 
-    private int flowingState(Map<String, Integer> index, List<StateDefinition> states, String id, String owner,
-                             String role, List<String> problems) {
+    private int flowingState(Map<String, Integer> index, List<StateDefinition> states, String id, Owner owner,
+                             String role, Problems problems) {
         Integer j = index.get(id);
         if (j == null) {
-            problems.add(owner + " " + role + " \"" + id + "\", which is not a state of unit \"" + unitId + "\"");
+            problems.add(owner, owner + " " + role + " \"" + id + "\", which is not a state of unit \"" + unitId + "\"");
             return -1;
         }
         if (states.get(j).isReference()) {
-            problems.add(owner + " " + role + " \"" + id + "\", which is itself an ideal reference state");
+            problems.add(owner, owner + " " + role + " \"" + id + "\", which is itself an ideal reference state");
             return -1;
         }
         return j;
     }
 
-    private int[] ports(List<String> ids, Map<String, Integer> index, List<StateDefinition> states, String owner,
-                        List<String> problems) {
+    private int[] ports(List<String> ids, Map<String, Integer> index, List<StateDefinition> states, Owner owner,
+                        Problems problems) {
         int[] result = new int[ids.size()];
         for (int k = 0; k < result.length; k++) {
             Integer j = index.get(ids.get(k));
             if (j == null) {
-                problems.add(owner + ": port \"" + ids.get(k) + "\" is not a state of unit \"" + unitId + "\"");
+                problems.add(owner, owner + ": port \"" + ids.get(k) + "\" is not a state of unit \"" + unitId + "\"");
                 result[k] = -1;
             } else if (states.get(j).isReference()) {
-                problems.add(owner + ": port \"" + ids.get(k)
+                problems.add(owner, owner + ": port \"" + ids.get(k)
                         + "\" is an ideal reference state, which carries no flow and sits on no port");
                 result[k] = -1;
             } else {
@@ -777,9 +870,9 @@ public final class CycleModel {
         return C_GENERATOR;
     }
 
-    private static void checkFraction(UncertainConstant c, String what, List<String> problems) {
+    private static void checkFraction(UncertainConstant c, Owner owner, String what, Problems problems) {
         if (!(c.value() > 0.0 && c.value() <= 1.0)) {
-            problems.add(what + " must lie within 0 (exclusive) and 1, was " + c.value());
+            problems.add(owner, owner + ": " + what + " must lie within 0 (exclusive) and 1, was " + c.value());
         }
     }
 
@@ -847,7 +940,7 @@ public final class CycleModel {
     }
 
     private void buildRows(List<Component> components, List<int[]> states, List<double[]> signs,
-                           List<Boolean> energy, List<Integer> sensorRows, List<String> labels, List<String> problems) {
+                           List<Boolean> energy, List<Integer> sensorRows, List<String> labels, Problems problems) {
         for (int c = 0; c < componentCount; c++) {
             if (kind[c] == C_GENERATOR) {
                 continue;
@@ -870,17 +963,42 @@ public final class CycleModel {
                 addRow(states, signs, energy, sensorRows, labels, concat(inlets[c], outlets[c]),
                         signs(inlets[c].length, outlets[c].length), false, -1, "mass balance of \"" + componentId[c] + "\"");
             }
-            if (kind[c] == C_OPEN_HEATER || kind[c] == C_MIXER || kind[c] == C_CLOSED_HEATER) {
+            boolean mixingFixesOutlet = kind[c] == C_MIXER && fix[outlets[c][0]] == FIX_MIXING;
+            if (kind[c] == C_OPEN_HEATER || kind[c] == C_MIXER && !mixingFixesOutlet || kind[c] == C_CLOSED_HEATER) {
                 int[] all = concat(inlets[c], outlets[c]);
+                double[] allSigns = signs(inlets[c].length, outlets[c].length);
+                // A mixing outlet's m h is the sum of its mixer's inlets' m h: the same balance, linear in the flows.
+                int mixing = 0;
+                for (int j : all) {
+                    mixing += fix[j] == FIX_MIXING ? 1 : 0;
+                }
+                if (mixing > 0) {
+                    List<Integer> expanded = new ArrayList<>();
+                    List<Double> expandedSigns = new ArrayList<>();
+                    for (int k = 0; k < all.length; k++) {
+                        if (fix[all[k]] == FIX_MIXING) {
+                            for (int in : inlets[mixerOf[all[k]]]) {
+                                expanded.add(in);
+                                expandedSigns.add(allSigns[k]);
+                            }
+                        } else {
+                            expanded.add(all[k]);
+                            expandedSigns.add(allSigns[k]);
+                        }
+                    }
+                    all = expanded.stream().mapToInt(Integer::intValue).toArray();
+                    allSigns = expandedSigns.stream().mapToDouble(Double::doubleValue).toArray();
+                }
                 for (int j : all) {
                     if (fix[j] == FIX_ENERGY_BALANCE) {
-                        problems.add("state \"" + stateId[j] + "\" takes its enthalpy from the energy balance of \""
+                        problems.add(Owner.state(stateId[j]), "state \"" + stateId[j]
+                                + "\" takes its enthalpy from the energy balance of \""
                                 + groupOwner[balanceGroup[j]]
                                 + "\" after the flows are solved, so it cannot enter the energy balance of \""
                                 + componentId[c] + "\", which the flows are solved from");
                     }
                 }
-                addRow(states, signs, energy, sensorRows, labels, all, signs(inlets[c].length, outlets[c].length),
+                addRow(states, signs, energy, sensorRows, labels, all, allSigns,
                         true, -1, "energy balance of \"" + componentId[c] + "\"");
             }
         }
@@ -922,7 +1040,7 @@ public final class CycleModel {
      * loop implies; a dependent energy balance or flow sensor over-determines the flows.
      */
     private int[] chooseIndependentRows(List<int[]> states, List<double[]> signs, List<Boolean> energy,
-                                        List<Integer> sensorRows, List<String> labels, List<String> problems) {
+                                        List<Integer> sensorRows, List<String> labels, Problems problems) {
         SplittableRandom random = new SplittableRandom(STRUCTURE_SEED);
         double[] h = new double[stateCount];
         for (int j = 0; j < stateCount; j++) {
@@ -948,19 +1066,25 @@ public final class CycleModel {
         }
         boolean balancesAloneFixEverything = false;
         boolean firstSensorRow = true;
+        // The energy balance that completed the rank, where a surplus among them is best shown.
+        String lastEnergyLabel = null;
         for (int r : order) {
             if (sensorRows.get(r) >= 0 && firstSensorRow) {
                 firstSensorRow = false;
                 balancesAloneFixEverything = basis.rank() == flowCount;
             }
-            if (balancesAloneFixEverything && sensorRows.get(r) >= 0 && problems.stream().noneMatch(
-                    p -> p.contains("the mass and energy balances alone leave no flow free"))) {
+            if (balancesAloneFixEverything && sensorRows.get(r) >= 0 && !problems.anyContains(
+                    "the mass and energy balances alone leave no flow free")) {
                 // The homogeneous balances have only the zero solution: the surplus is an energy
                 // balance, not the flow sensor that happens to come after it.
-                problems.add("flows are over-determined: the mass and energy balances alone leave no flow free"
+                Owner surplus = lastEnergyLabel == null ? Owner.unit(unitId)
+                        : Owner.component(componentOfRow(lastEnergyLabel));
+                problems.add(surplus, "flows are over-determined: the mass and energy balances alone"
+                        + " leave no flow free"
                         + " (they would force every flow to zero), so one of the energy balances of "
                         + energyLabels + " is redundant, for example a mixer or heater all of whose flows the"
-                        + " other balances already fix");
+                        + " other balances already fix; a mixer's outlet can instead take its enthalpy from the"
+                        + " mixer's own energy balance, unmeasured");
             }
             double[] row = new double[flowCount];
             int[] js = states.get(r);
@@ -969,12 +1093,15 @@ public final class CycleModel {
             }
             if (basis.add(row)) {
                 chosen.add(r);
+                if (energy.get(r)) {
+                    lastEnergyLabel = labels.get(r);
+                }
             } else if (sensorRows.get(r) >= 0 && !balancesAloneFixEverything) {
-                problems.add("flows are over-determined: " + labels.get(r)
+                problems.add(Owner.state(stateId[states.get(r)[0]]), "flows are over-determined: " + labels.get(r)
                         + " measures a flow that the balances and the flow sensors before it already fix; redundant"
                         + " flow measurements are not reconciled, so declare only one of them as a state's flow sensor");
             } else if (energy.get(r)) {
-                problems.add("flows are over-determined: the " + labels.get(r)
+                problems.add(Owner.component(componentOfRow(labels.get(r))), "flows are over-determined: the " + labels.get(r)
                         + " adds nothing to the mass balances and the other energy balances");
             }
         }
@@ -991,7 +1118,7 @@ public final class CycleModel {
             for (int j = 0; j < stateCount; j++) {
                 anyFlowSensor |= flowSensor[j] >= 0;
             }
-            problems.add("mass balance cannot close: the flows of states " + loose
+            problems.add(Owner.state(loose.get(0)), "mass balance cannot close: the flows of states " + loose
                     + " are not fixed by any measured flow or balance"
                     + (anyFlowSensor ? "" : " (no state of the unit has a flow sensor)"));
         }
@@ -1022,6 +1149,7 @@ public final class CycleModel {
         checkPressureChanges();
         checkDirectPhases();
         solveFlows();
+        fixMixingStates();
         evaluateGroups();
         fixBalanceStates();
         fixReferenceStates();
@@ -1439,6 +1567,61 @@ public final class CycleModel {
                 dh[x] = (dE[x] - gradientPart[x] - k * h * dm[x]) / m;
             }
             checkExpectedPhase(j, "balanced");
+        }
+    }
+
+    /** Mixer outlets: h_out = Σ m_in h_in / m_out, adiabatic mixing, with its sensitivities. */
+    private void fixMixingStates() {
+        for (int j = 0; j < stateCount; j++) {
+            if (fix[j] != FIX_MIXING || !pressureKnown[j]) {
+                continue;
+            }
+            int c = mixerOf[j];
+            if (!flowKnown[j]) {
+                invalidate(j, "the mixing in \"" + componentId[c] + "\" needs its flow: " + flowWhy[j]);
+                continue;
+            }
+            if (!(flow[j] > 0.0)) {
+                invalidate(j, "the mixing in \"" + componentId[c] + "\" cannot give an enthalpy at zero flow");
+                continue;
+            }
+            double sum = 0.0;
+            String missing = null;
+            for (int in : inlets[c]) {
+                if (!stateOk[in]) {
+                    missing = "state \"" + stateId[in] + "\", which is invalid";
+                    break;
+                }
+                if (!flowKnown[in]) {
+                    missing = "the flow of state \"" + stateId[in] + "\": " + flowWhy[in];
+                    break;
+                }
+                sum += flow[in] * enthalpy[in];
+            }
+            if (missing != null) {
+                invalidate(j, "the mixing in \"" + componentId[c] + "\" needs " + missing);
+                continue;
+            }
+            double m = flow[j];
+            double h = sum / m;
+            try {
+                point.setPH(pressure[j], h);
+            } catch (SteamRangeException | IllegalStateException e) {
+                invalidate(j, "the mixing in \"" + componentId[c] + "\" gives h = " + h
+                        + " J/kg, for which there is no IF97 state: " + e.getMessage());
+                continue;
+            }
+            takePoint(j);
+            double[] dh = dEnthalpy[j];
+            double[] dm = dFlow[j];
+            for (int x = 0; x < inputCount; x++) {
+                double d = -h * dm[x];
+                for (int in : inlets[c]) {
+                    d += dFlow[in][x] * enthalpy[in] + flow[in] * dEnthalpy[in][x];
+                }
+                dh[x] = d / m;
+            }
+            checkExpectedPhase(j, "mixed");
         }
     }
 

@@ -11,17 +11,59 @@ import java.util.Objects;
  */
 public final class CycleModelException extends IllegalArgumentException {
 
-    private final String unitId;
-    private final List<String> problems;
+    /** The sort of element of the unit's description a problem is about. */
+    public enum Element {
+        /** The unit as a whole, or no single element of it. */
+        UNIT,
+        SENSOR,
+        STATE,
+        COMPONENT
+    }
 
     /**
+     * One problem and the element of the unit's description it is about, so that a loader can name
+     * the place in the file where that element is declared.
+     *
+     * @param element the sort of element
+     * @param id      its id (the unit's id for {@link Element#UNIT})
+     * @param message the problem, in the words shown to the user
+     */
+    public record Problem(Element element, String id, String message) {
+        public Problem {
+            Objects.requireNonNull(element, "element");
+            Objects.requireNonNull(id, "id");
+            Objects.requireNonNull(message, "message");
+        }
+    }
+
+    private final String unitId;
+    private final List<String> problems;
+    private final List<Problem> located;
+
+    /**
+     * Problems that concern the unit as a whole.
+     *
      * @param unitId   the unit whose description was rejected
      * @param problems the problems found, at least one, in the words shown to the user
      */
     public CycleModelException(String unitId, List<String> problems) {
-        super(message(unitId, problems));
+        this(unitId, problems.stream().map(p -> new Problem(Element.UNIT, unitId, p)).toList(), true);
+    }
+
+    private CycleModelException(String unitId, List<Problem> located, boolean unused) {
+        super(message(unitId, located.stream().map(Problem::message).toList()));
         this.unitId = unitId;
-        this.problems = List.copyOf(problems);
+        this.located = List.copyOf(located);
+        this.problems = this.located.stream().map(Problem::message).toList();
+    }
+
+    /**
+     * @param unitId  the unit whose description was rejected
+     * @param located the problems found, at least one, each with the element it is about
+     * @return the exception listing them
+     */
+    public static CycleModelException located(String unitId, List<Problem> located) {
+        return new CycleModelException(unitId, located, true);
     }
 
     private static String message(String unitId, List<String> problems) {
@@ -45,5 +87,10 @@ public final class CycleModelException extends IllegalArgumentException {
     /** Each problem, in the words of the message. */
     public List<String> problems() {
         return problems;
+    }
+
+    /** Each problem with the element of the description it is about, in the order of {@link #problems()}. */
+    public List<Problem> located() {
+        return located;
     }
 }

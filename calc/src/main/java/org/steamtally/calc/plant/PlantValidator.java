@@ -308,6 +308,12 @@ public final class PlantValidator {
                 measurement = p.motor().isPresent() ? p.id() : null;
                 measurementName = "the motor power of pump \"" + p.id() + "\"";
                 lacking = "a pump without motor measurement to fix it";
+            } else if (component instanceof Mixer x) {
+                // No measurement: the adiabatic mixing of the inlets, once their flows are known.
+                measurement = x.outlet().equals(state.id()) ? "mixer " + x.id() : null;
+                measurementName = "the mixing in mixer \"" + x.id() + "\"";
+                lacking = "but it is an inlet of that mixer: only a mixer's outlet takes its enthalpy from the"
+                        + " adiabatic mixing of the inlets";
             } else if (component instanceof SteamGenerator b) {
                 measurement = b.fuel().isPresent() ? b.id() : null;
                 measurementName = "the fuel heat of steam generator \"" + b.id() + "\"";
@@ -317,7 +323,7 @@ public final class PlantValidator {
                 measurementName = "";
                 lacking = "a " + component.type() + " with no independent measurement to fix it (only a condenser"
                         + " with cooling water, a turbine with a generator, a pump with a motor or a steam generator"
-                        + " with fuel can)";
+                        + " with fuel can, and a mixer its outlet)";
             }
             if (measurement == null) {
                 add(path, Kind.MEASUREMENT, lead + ", " + lacking, state.id(), component.id());
@@ -546,6 +552,15 @@ public final class PlantValidator {
             for (int i = 0; i < enthalpy.length; i++) {
                 enthalpy[i] = 1.0 + 3.0 * random.nextDouble();
             }
+            // A mixer whose outlet takes its enthalpy from the mixing has no energy balance of its own
+            // here; where that outlet enters another balance, its m h is the sum of the inlets' m h.
+            Map<String, Mixer> mixingOutlets = new HashMap<>();
+            for (StateDefinition state : unit.states()) {
+                if (state.fix() instanceof StateFix.EnergyBalance eb
+                        && component(eb.componentId()).orElse(null) instanceof Mixer x && x.outlet().equals(state.id())) {
+                    mixingOutlets.put(state.id(), x);
+                }
+            }
             List<double[]> rows = new ArrayList<>();
             for (Component component : unit.components()) {
                 List<Port> ports = ports(component);
@@ -555,13 +570,18 @@ public final class PlantValidator {
                 } else if (!ports.isEmpty()) {
                     rows.add(massRow(ports, column, flowing.size(), p -> true));
                 }
+                boolean mixing = component instanceof Mixer x && mixingOutlets.containsKey(x.outlet());
                 if (component instanceof ClosedFeedwaterHeater || component instanceof OpenFeedwaterHeater
-                        || component instanceof Mixer) {
+                        || component instanceof Mixer && !mixing) {
                     double[] row = new double[flowing.size()];
                     for (Port port : ports) {
-                        Integer c = column.get(port.stateId());
-                        if (c != null) {
-                            row[c] += (port.inlet() ? 1.0 : -1.0) * enthalpy[c];
+                        double sign = port.inlet() ? 1.0 : -1.0;
+                        Mixer mixer = mixingOutlets.get(port.stateId());
+                        for (String id : mixer == null ? List.of(port.stateId()) : mixer.inlets()) {
+                            Integer c = column.get(id);
+                            if (c != null) {
+                                row[c] += sign * enthalpy[c];
+                            }
                         }
                     }
                     rows.add(row);

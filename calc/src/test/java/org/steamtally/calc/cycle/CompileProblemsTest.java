@@ -1,6 +1,7 @@
 package org.steamtally.calc.cycle;
 
 import static org.junit.jupiter.api.Assertions.assertDoesNotThrow;
+import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -107,6 +108,19 @@ class CompileProblemsTest {
         assertProblem(problems, "state \"main_steam\": pressure sensor \"PT-9\" is not a sensor of unit \"simple\"");
         assertProblem(problems, "state \"main_steam\": temperature sensor \"p_feedwater\" measures PRESSURE, not"
                 + " TEMPERATURE");
+    }
+
+    @Test
+    void eachProblemCarriesTheElementItConcerns() {
+        UnitBuilder unit = simple().flow("main_steam", 50.0).flow("feedwater", 50.0)
+                .fix("main_steam", new StateFix.MeasuredPressureTemperature("PT-9", "T_main_steam"))
+                .component(new Component.Mixer("mixer", List.of("nowhere"), "elsewhere"));
+        CycleModelException e = assertThrows(CycleModelException.class, unit::model);
+        assertEquals(e.problems(), e.located().stream().map(CycleModelException.Problem::message).toList());
+        assertTrue(e.located().contains(new CycleModelException.Problem(CycleModelException.Element.STATE, "main_steam",
+                "state \"main_steam\": pressure sensor \"PT-9\" is not a sensor of unit \"simple\"")), e.getMessage());
+        assertTrue(e.located().contains(new CycleModelException.Problem(CycleModelException.Element.COMPONENT, "mixer",
+                "component \"mixer\": port \"nowhere\" is not a state of unit \"simple\"")), e.getMessage());
     }
 
     @Test

@@ -19,6 +19,7 @@ import java.util.function.Supplier;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 
+import org.steamtally.calc.cycle.CycleModelException;
 import org.steamtally.calc.plant.Component;
 import org.steamtally.calc.plant.CoolingWater;
 import org.steamtally.calc.plant.DeadState;
@@ -54,8 +55,9 @@ import org.yaml.snakeyaml.nodes.SequenceNode;
  * the {@link PlantDescription} records, every declared value converted to SI through
  * {@link Units}. The file is checked as a whole: key names, value types and units here, with the line
  * and column of each problem; the structure (references, connections, measurements, flow
- * determinability) by {@link PlantValidator}, whose problem paths are mapped back to lines. All
- * problems are collected and thrown together.
+ * determinability) by {@link PlantValidator}, whose problem paths are mapped back to lines; then
+ * whether the cycle model can be built for each unit ({@link CycleModelCheck}), its problems placed
+ * at the element they concern. All problems are collected and thrown together.
  *
  * <p>Top-level sections {@code alarms} and {@code collector} are reserved for the alarm and
  * collector settings that live in the same file; this loader accepts them unread, except that the
@@ -160,6 +162,14 @@ public final class PlantDescriptionLoader {
             if (plant != null) {
                 for (PlantProblem p : PlantValidator.validate(plant)) {
                     addValidatorProblem(p);
+                }
+            }
+            if (plant != null && problems.isEmpty()) {
+                for (int u = 0; u < plant.units().size(); u++) {
+                    for (CycleModelException.Problem p : CycleModelCheck.problems(plant.siteId(), plant.units().get(u))) {
+                        problem(markOf(translate(CycleModelCheck.path(u, plant.units().get(u), p)).orElse("")),
+                                p.message());
+                    }
                 }
             }
             if (!problems.isEmpty()) {

@@ -36,7 +36,8 @@ import org.steamtally.collector.payload.Reading;
  * ({@link SnapshotAligner}) and every snapshot is evaluated. Replay time is the newest {@code ts}
  * seen so far, so a line may be out of order by up to the allowed lateness and still enter its
  * snapshot. A unit's snapshots start with its first reading. Readings of quality {@code bad} are
- * read but not used; {@code uncertain} ones are used.
+ * read but not used; {@code uncertain} ones are used. A reading outside its sensor's plausible range
+ * is reported with its line number and not used (the line still counts as good).
  */
 final class Replayer {
 
@@ -69,6 +70,8 @@ final class Replayer {
     private long problemsNotShown;
     private boolean clockSet;
     private long clockMillis;
+    /** Set by {@link #take} for a good line whose reading is implausible, reported with its line number. */
+    private String notice;
 
     /** Where one topic's readings go. */
     private record Target(int unitIndex, int sensorIndex, Sensor sensor) {
@@ -128,9 +131,13 @@ final class Replayer {
                 continue;
             }
             linesRead++;
+            notice = null;
             String problem = take(line, out, report);
             if (problem == null) {
                 linesGood++;
+                if (notice != null) {
+                    problem(report, "line " + lineNumber + ": " + notice);
+                }
             } else {
                 linesBad++;
                 if (firstBadLine == 0) {
@@ -204,6 +211,14 @@ final class Replayer {
             Offer offer = aligners.get(target.unitIndex()).offer(target.sensorIndex(), ts, si[i]);
             if (!offer.kept()) {
                 readingsUnused++;
+            }
+            if (offer == Offer.IMPLAUSIBLE) {
+                // A well-formed line, but the engineer should hear of it: the sensor's previous
+                // reading stands in until it is stale.
+                Sensor sensor = target.sensor();
+                String unit = sensor.quantity().siUnit();
+                notice = "sensor " + sensor.id() + " reads " + si[i] + " " + unit + ", outside its plausible range "
+                        + sensor.rangeMinSi() + " to " + sensor.rangeMaxSi() + " " + unit + "; reading not used";
             }
         }
         return null;

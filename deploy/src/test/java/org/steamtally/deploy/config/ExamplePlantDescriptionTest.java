@@ -48,6 +48,13 @@ class ExamplePlantDescriptionTest {
     }
 
     @Test
+    void mixerOutletFixedByItsMixingLoadsAndCompiles() throws Exception {
+        Path file = Path.of(getClass().getResource("valid-mixing-outlet.yaml").toURI());
+        PlantDescription plant = PlantDescriptionLoader.load(file);
+        assertEquals("u1", CycleModel.compile(plant.siteId(), plant.units().get(0)).unitId());
+    }
+
+    @Test
     void minimalFileLoadsWithDefaults() throws Exception {
         Path file = Path.of(getClass().getResource("valid-minimal.yaml").toURI());
         UnitDescription unit = PlantDescriptionLoader.load(file).units().get(0);

@@ -48,9 +48,10 @@ class PlantDescriptionSchemaTest {
         assertEquals(List.of(), validate(Files.readString(ExamplePlantDescriptionTest.example(name))));
     }
 
-    @Test
-    void minimalTestFileSatisfiesTheSchema() throws Exception {
-        Path file = Path.of(getClass().getResource("valid-minimal.yaml").toURI());
+    @ParameterizedTest
+    @ValueSource(strings = {"valid-minimal.yaml", "valid-mixing-outlet.yaml"})
+    void validTestFileSatisfiesTheSchema(String name) throws Exception {
+        Path file = Path.of(getClass().getResource(name).toURI());
         assertEquals(List.of(), validate(Files.readString(file)));
     }
 
