@@ -77,21 +77,23 @@
     const isStale = stale();
     if (value === null) {
       v.append('—');
-      mark.append(state.result ? 'INVALID: ' + (invalidReason || 'inputs invalid') : 'NO DATA');
+      mark.append(state.result ? 'INVALID — ' + (invalidReason || 'its inputs are invalid') : 'NO DATA');
     } else {
       v.append(value.text);
       if (value.unit) v.append(el('span', { class: 'unit' }, value.unit));
       if (isStale) mark.append('STALE');
     }
-    box.classList.toggle('untrusted', value === null || isStale);
+    box.classList.toggle('untrusted', value !== null && isStale);
   }
 
   function renderMetrics() {
     const c = state.result ? state.result.cycle : {};
-    setMetric('metric-eta', num(c.thermal_efficiency, Units.percent));
-    setMetric('metric-net', num(c.net_work_W, Units.power));
-    setMetric('metric-hr', num(c.heat_rate_kJ_per_kWh, v => sys().heatRate(v)));
-    setMetric('metric-bwr', num(c.back_work_ratio, Units.ratio));
+    const bad = state.result ? state.result.states.filter(x => !x.valid).map(x => x.id) : [];
+    const why = bad.length ? 'needs ' + bad.join(', ') : null;
+    setMetric('metric-eta', num(c.thermal_efficiency, Units.percent), why);
+    setMetric('metric-net', num(c.net_work_W, Units.power), why);
+    setMetric('metric-hr', num(c.heat_rate_kJ_per_kWh, v => sys().heatRate(v)), why);
+    setMetric('metric-bwr', num(c.back_work_ratio, Units.ratio), why);
   }
 
   function renderStatus() {
@@ -150,10 +152,10 @@
   // Components (without the generator, which has no ports) are placed clockwise around a rectangle in
   // the plant description's order, which follows the flow; each flowing state is a line from the
   // component it leaves to the one it enters, with its values in a box on the line.
-  const W = 1200, H = 820;
+  const W = 1200, H = 860;
   function layoutComponents(comps) {
     const placed = new Map();
-    const x0 = 140, y0 = 110, x1 = W - 140, y1 = H - 110;
+    const x0 = 130, y0 = 90, x1 = W - 130, y1 = H - 90;
     const per = 2 * (x1 - x0) + 2 * (y1 - y0);
     comps.forEach((c, i) => {
       let d = per * (i / comps.length);
@@ -174,10 +176,10 @@
       return { w: 70, h: 70 };
     }
     if (type === 'turbine') {
-      g.append(svg('path', { d: `M${p.x - 80},${p.y - 26} L${p.x + 80},${p.y - 52} L${p.x + 80},${p.y + 52} L${p.x - 80},${p.y + 26} Z`, class: 'sch-box' }));
-      return { w: 160, h: 104 };
+      g.append(svg('path', { d: `M${p.x - 90},${p.y - 34} L${p.x + 90},${p.y - 58} L${p.x + 90},${p.y + 58} L${p.x - 90},${p.y + 34} Z`, class: 'sch-box' }));
+      return { w: 180, h: 116 };
     }
-    const w = 170, h = 66;
+    const w = 190, h = 84;
     g.append(svg('rect', { x: p.x - w / 2, y: p.y - h / 2, width: w, height: h, rx: type === 'steam_generator' ? 2 : 10, class: 'sch-box' }));
     return { w, h };
   }
@@ -192,12 +194,22 @@
     const s = Math.min(sx, sy, 1);
     return { x: p.x + dx * s, y: p.y + dy * s };
   }
+  function overlaps(a, b, pad) {
+    return a.x < b.x + b.w + pad && b.x < a.x + a.w + pad && a.y < b.y + b.h + pad && b.y < a.y + a.h + pad;
+  }
+  function dutyText(rc) {
+    if (!state.result) return { text: '', bad: false };
+    if (!rc || !rc.valid) return { text: 'INVALID', bad: true };
+    if (rc.work_out_W !== null && Math.abs(rc.work_out_W) > 0) return { text: 'W ' + Units.power(rc.work_out_W).text + ' MW', bad: false };
+    if (rc.heat_in_W !== null && Math.abs(rc.heat_in_W) > 0) return { text: 'Q ' + Units.power(rc.heat_in_W).text + ' MW', bad: false };
+    return { text: '', bad: false };
+  }
   function renderSchematic() {
     const root = $('schematic');
     clear(root);
     root.setAttribute('viewBox', `0 0 ${W} ${H}`);
     const defs = svg('defs');
-    const marker = svg('marker', { id: 'arrow', viewBox: '0 0 10 10', refX: 9, refY: 5, markerWidth: 7, markerHeight: 7, orient: 'auto-start-reverse' });
+    const marker = svg('marker', { id: 'arrow', viewBox: '0 0 10 10', refX: 9, refY: 5, markerWidth: 6, markerHeight: 6, orient: 'auto-start-reverse' });
     marker.append(svg('path', { d: 'M0,0 L10,5 L0,10 z', fill: '#cfd8de' }));
     defs.append(marker);
     root.append(defs);
@@ -207,25 +219,27 @@
     const sizes = new Map();
     const gComp = svg('g');
     for (const p of placed.values()) sizes.set(p.c.id, componentShape(gComp, p));
+    // Rectangles that state labels must keep clear of: the components and their text.
+    const taken = [...placed.values()].map(p => {
+      const z = sizes.get(p.c.id);
+      return p.c.type === 'pump' ? { x: p.x - 95, y: p.y - z.h / 2 - 30, w: 190, h: z.h + 66 } : { x: p.x - z.w / 2, y: p.y - z.h / 2, w: z.w, h: z.h };
+    });
     const byId = stateById();
     const resultComps = new Map((state.result ? state.result.components : []).map(c => [c.id, c]));
     const isStale = stale();
     const u = sys();
     const gFlow = svg('g'), gLabels = svg('g');
     const states = state.unitDesc.states.filter(s => !s.reference);
-    states.forEach((sd, i) => {
+    for (const sd of states) {
       const from = comps.find(c => c.outlets.includes(sd.id));
       const to = comps.find(c => c.inlets.includes(sd.id));
-      if (!from || !to) return;
+      if (!from || !to) continue;
       const a = placed.get(from.id), b = placed.get(to.id);
       const pa = edgePoint(a, sizes.get(from.id), b), pb = edgePoint(b, sizes.get(to.id), a);
       const r = byId.get(sd.id);
       const ok = r && r.valid;
       const cls = 'sch-flow' + (!ok ? ' invalid' : (r.phase === 'vapour' || r.phase === 'supercritical' ? ' vapour' : ''));
       gFlow.append(svg('line', { x1: pa.x, y1: pa.y, x2: pb.x, y2: pb.y, class: cls, 'marker-end': 'url(#arrow)' }));
-      // Labels sit a little off the midpoint, alternating, so that crossing lines keep them apart.
-      const t = 0.5 + ((i % 3) - 1) * 0.14;
-      const lx = pa.x + (pb.x - pa.x) * t, ly = pa.y + (pb.y - pa.y) * t;
       const lines = [];
       if (!r) {
         lines.push(['NO DATA', 'invalid']);
@@ -234,32 +248,38 @@
         if (r.p_Pa !== null) { const p = u.pressure(r.p_Pa); lines.push([`p ${p.text} ${p.unit}`, '']); }
       } else {
         const p = u.pressure(r.p_Pa), T = u.temperature(r.T_K), h = u.enthalpy(r.h_J_per_kg);
-        lines.push([`p ${p.text} ${p.unit}  T ${T.text} ${T.unit}`, '']);
-        lines.push([`h ${h.text} ${h.unit}` + (r.x !== null ? `  x ${Units.quality(r.x).text}` : ''), '']);
+        lines.push([`p ${p.text} ${p.unit}   T ${T.text} ${T.unit}`, '']);
+        lines.push([`h ${h.text} ${h.unit}` + (r.x !== null ? `   x ${Units.quality(r.x).text}` : ''), '']);
         if (isStale) lines.push(['STALE', 'invalid']);
       }
-      const boxW = 216, boxH = 20 + 17 * lines.length;
-      const bx = Math.min(Math.max(lx - boxW / 2, 2), W - boxW - 2), by = Math.min(Math.max(ly - boxH / 2, 2), H - boxH - 2);
-      gLabels.append(svg('rect', { x: bx, y: by, width: boxW, height: boxH, rx: 3, class: 'sch-label-box' + (ok && !isStale ? '' : ' invalid') }));
-      gLabels.append(svg('text', { x: bx + 6, y: by + 15, class: 'sch-label-id' }, sd.id));
-      lines.forEach((ln, j) => gLabels.append(svg('text', { x: bx + 6, y: by + 32 + 17 * j, class: 'sch-label' + (ln[1] ? ' ' + ln[1] : '') }, ln[0])));
-    });
+      const boxW = 250, boxH = 24 + 19 * lines.length;
+      // The label slides along its line to the first place clear of components and earlier labels.
+      let box = null;
+      for (const t of [0.5, 0.4, 0.6, 0.3, 0.7, 0.22, 0.78, 0.45, 0.55, 0.35, 0.65]) {
+        const lx = pa.x + (pb.x - pa.x) * t, ly = pa.y + (pb.y - pa.y) * t;
+        const cand = { x: Math.min(Math.max(lx - boxW / 2, 2), W - boxW - 2), y: Math.min(Math.max(ly - boxH / 2, 2), H - boxH - 2), w: boxW, h: boxH };
+        if (!taken.some(o => overlaps(cand, o, 4))) { box = cand; break; }
+        if (!box) box = cand;
+      }
+      taken.push(box);
+      gLabels.append(svg('rect', { x: box.x, y: box.y, width: boxW, height: boxH, rx: 3, class: 'sch-label-box' + (ok && !isStale ? '' : ' invalid') }));
+      gLabels.append(svg('text', { x: box.x + 7, y: box.y + 17, class: 'sch-label-id' }, sd.id));
+      lines.forEach((ln, j) => gLabels.append(svg('text', { x: box.x + 7, y: box.y + 37 + 19 * j, class: 'sch-label' + (ln[1] ? ' ' + ln[1] : '') }, ln[0])));
+    }
     root.append(gFlow, gComp);
     for (const p of placed.values()) {
-      const rc = resultComps.get(p.c.id);
-      const size = sizes.get(p.c.id);
-      const top = p.c.type === 'pump' ? p.y - size.h / 2 - 24 : p.y - 6;
-      root.append(svg('text', { x: p.x, y: p.c.type === 'pump' ? top : p.y - 8, 'text-anchor': 'middle', class: 'sch-title' }, p.c.id));
-      root.append(svg('text', { x: p.x, y: p.c.type === 'pump' ? top + 16 + size.h + 8 : p.y + 10, 'text-anchor': 'middle', class: 'sch-sub' }, TYPE_NAMES[p.c.type] || p.c.type));
-      let duty = '';
-      let dutyClass = 'sch-duty';
-      if (!state.result) duty = '';
-      else if (!rc || !rc.valid) { duty = 'INVALID'; dutyClass += ' invalid sch-label'; }
-      else if (rc.work_out_W !== null && Math.abs(rc.work_out_W) > 0) duty = 'W ' + Units.power(rc.work_out_W).text + ' MW';
-      else if (rc.heat_in_W !== null && Math.abs(rc.heat_in_W) > 0) duty = 'Q ' + Units.power(rc.heat_in_W).text + ' MW';
-      if (duty && isStale) duty += ' (STALE)';
-      const dy = p.c.type === 'pump' ? size.h / 2 + 42 : (p.c.type === 'turbine' ? 46 : size.h / 2 + 20);
-      if (duty) root.append(svg('text', { x: p.x, y: p.y + dy, 'text-anchor': 'middle', class: dutyClass }, duty));
+      const z = sizes.get(p.c.id);
+      const duty = dutyText(resultComps.get(p.c.id));
+      if (duty.text && isStale && !duty.bad) duty.text += ' STALE';
+      const dutyClass = 'sch-duty' + (duty.bad || (isStale && duty.text) ? ' invalid' : '');
+      if (p.c.type === 'pump') {
+        root.append(svg('text', { x: p.x, y: p.y - z.h / 2 - 10, 'text-anchor': 'middle', class: 'sch-title' }, p.c.id));
+        if (duty.text) root.append(svg('text', { x: p.x, y: p.y + z.h / 2 + 22, 'text-anchor': 'middle', class: dutyClass }, duty.text));
+      } else {
+        root.append(svg('text', { x: p.x, y: p.y - 12, 'text-anchor': 'middle', class: 'sch-title' }, p.c.id));
+        root.append(svg('text', { x: p.x, y: p.y + 7, 'text-anchor': 'middle', class: 'sch-sub' }, TYPE_NAMES[p.c.type] || p.c.type));
+        if (duty.text) root.append(svg('text', { x: p.x, y: p.y + 29, 'text-anchor': 'middle', class: dutyClass }, duty.text));
+      }
     }
     root.append(gLabels);
     if (isStale && state.result) {
@@ -336,25 +356,33 @@
 
     const g = svg('g', { 'clip-path': 'url(#ts-clip)' });
     const line = (pts, cls) => svg('polyline', { points: pts.map(p => X(p[0]).toFixed(1) + ',' + Y(p[1]).toFixed(1)).join(' '), class: cls });
+    const isoLabels = [];
     for (const iso of state.diagram.isobars) {
       g.append(line(iso.points, 'ts-isobar'));
       const last = iso.points.filter(p => p[1] <= tMaxK && p[0] <= sMax).pop();
-      if (last) root.append(svg('text', { x: Math.min(X(last[0]) + 4, TW - M.r - 70), y: Y(last[1]) - 4, class: 'ts-isobar-label' }, u.pressureLabel(iso.p_Pa)));
+      if (!last) continue;
+      const lx = Math.min(X(last[0]) + 4, TW - M.r - 70);
+      let ly = Math.max(Y(last[1]) - 4, M.t + 12);
+      while (isoLabels.some(l => Math.abs(l.x - lx) < 75 && Math.abs(l.y - ly) < 14)) ly += 14;
+      isoLabels.push({ x: lx, y: ly });
+      root.append(svg('text', { x: lx, y: ly, class: 'ts-isobar-label' }, u.pressureLabel(iso.p_Pa)));
     }
     g.append(line(state.diagram.dome, 'ts-dome'));
 
     // The cycle, joined in flow order; heat exchange follows the nearest isobar between its ends.
     const path = cycleOrder();
-    const pts = [];
+    // A state that is invalid breaks the line: no segment is drawn through a point that is not known.
+    let pts = [];
+    const flush = () => { if (pts.length > 1) g.append(line(pts, 'ts-cycle')); pts = []; };
     for (let i = 0; i < path.length; i++) {
       const r = byId.get(path[i].id);
-      if (!r || !r.valid || r.s_J_per_kgK === null) continue;
+      if (!r || !r.valid || r.s_J_per_kgK === null) { flush(); continue; }
       const prev = i > 0 ? byId.get(path[i - 1].id) : null;
       const via = i > 0 ? path[i - 1].nextVia : null;
-      if (prev && prev.valid && via && HEAT_EXCHANGE.has(via.type)) pts.push(...alongIsobar(prev, r));
+      if (pts.length && prev && prev.valid && via && HEAT_EXCHANGE.has(via.type)) pts.push(...alongIsobar(prev, r));
       pts.push([r.s_J_per_kgK, r.T_K]);
     }
-    if (pts.length > 1) g.append(line(pts, 'ts-cycle'));
+    flush();
     // Ideal (isentropic) references: dashed from the state they start at.
     for (const sd of state.unitDesc.states.filter(s => s.reference)) {
       const r = byId.get(sd.id), from = byId.get(sd.from_state);
@@ -409,24 +437,24 @@
     // Mark the zoomed area on the main diagram (at least a few pixels so that it shows).
     const zx = X(s0), zy = Y(t1), zw = Math.max(X(s1) - X(s0), 8), zh = Math.max(Y(t0) - Y(t1), 8);
     root.append(svg('rect', { x: zx - 4, y: zy - 4, width: zw + 8, height: zh + 8, class: 'ts-zoom-box' }));
-    const ix = M.l + 16, iy = M.t + 12, iw = 250, ih = 180;
+    const ix = M.l + 16, iy = M.t + 12, iw = 300, ih = 200;
     root.append(svg('line', { x1: ix + iw, y1: iy + ih, x2: zx, y2: zy, class: 'ts-zoom-box' }));
     root.append(svg('rect', { x: ix, y: iy, width: iw, height: ih, class: 'ts-inset-frame' }));
     root.append(svg('text', { x: ix + 8, y: iy + 17, class: 'ts-inset-title' }, 'zoom: ' + best.c.id));
-    const x = s => ix + 14 + (s - s0) / (s1 - s0) * (iw - 28);
-    const y = t => iy + ih - 14 - (t - t0) / (t1 - t0) * (ih - 40);
+    const x = s => ix + 20 + (s - s0) / (s1 - s0) * (iw - 70);
+    const y = t => iy + ih - 26 - (t - t0) / (t1 - t0) * (ih - 92);
     root.append(svg('line', { x1: x(a.s_J_per_kgK), y1: y(a.T_K), x2: x(b.s_J_per_kgK), y2: y(b.T_K), class: 'ts-cycle' }));
     const u = sys();
-    for (const r of [a, b]) {
+    for (const [r, name] of [[a, 'in'], [b, 'out']]) {
       root.append(svg('circle', { cx: x(r.s_J_per_kgK), cy: y(r.T_K), r: 5, class: 'ts-point' }));
-      const p = u.pressure(r.p_Pa);
-      const anchorRight = x(r.s_J_per_kgK) > ix + iw / 2;
-      root.append(svg('text', { x: x(r.s_J_per_kgK) + (anchorRight ? -8 : 8), y: y(r.T_K) + (r === a ? 16 : -8),
-        'text-anchor': anchorRight ? 'end' : 'start', class: 'ts-label' }, r.id + ' ' + p.text + ' ' + p.unit));
+      root.append(svg('text', { x: x(r.s_J_per_kgK) + 9, y: y(r.T_K) + 5, class: 'ts-label' }, name));
     }
+    const pa = u.pressure(a.p_Pa), pb = u.pressure(b.p_Pa);
+    root.append(svg('text', { x: ix + 8, y: iy + 36, class: 'ts-tick' }, 'in  ' + a.id + ' ' + pa.text + ' ' + pa.unit));
+    root.append(svg('text', { x: ix + 8, y: iy + 54, class: 'ts-tick' }, 'out ' + b.id + ' ' + pb.text + ' ' + pb.unit));
     const dT = u.tAxis(b.T_K) - u.tAxis(a.T_K);
-    root.append(svg('text', { x: ix + 8, y: iy + ih - 4, class: 'ts-tick' },
-      'ΔT ' + Units.fixed(dT, 2) + ' ' + u.tAxisUnit + ',  Δs ' + Units.fixed(u.sAxis(b.s_J_per_kgK - a.s_J_per_kgK), 4)));
+    root.append(svg('text', { x: ix + 8, y: iy + ih - 6, class: 'ts-tick' },
+      'ΔT ' + Units.fixed(dT, 2) + ' ' + u.tAxisUnit + '   Δs ' + Units.fixed(u.sAxis(b.s_J_per_kgK - a.s_J_per_kgK), 4) + ' ' + u.sAxisUnit));
   }
 
   function niceStep(raw) {
