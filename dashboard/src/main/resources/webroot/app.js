@@ -6,6 +6,7 @@
   const state = {
     plant: null, unitId: null, unitDesc: null, result: null, receivedAt: 0, staleAfterS: 10,
     diagram: null, diagramKey: '', system: 'SI', session: null, alarms: [], stream: null, view: 'cycle',
+    serverStale: false,
   };
 
   // ------------------------------------------------------------------ DOM helpers
@@ -53,8 +54,10 @@
     if (opt === null || opt === undefined) return null;
     return fmt(opt);
   }
+  // Stale when the server says so (it judges the result's time against its own clock) or when this
+  // page has heard nothing for longer than the unit's stale-after age (the stream itself may be cut).
   function stale() {
-    return !state.result || (Date.now() - state.receivedAt) > state.staleAfterS * 1000;
+    return !state.result || state.serverStale || (Date.now() - state.receivedAt) > state.staleAfterS * 1000;
   }
 
   // ------------------------------------------------------------------ views
@@ -270,7 +273,6 @@
     for (const p of placed.values()) {
       const z = sizes.get(p.c.id);
       const duty = dutyText(resultComps.get(p.c.id));
-      if (duty.text && isStale && !duty.bad) duty.text += ' STALE';
       const dutyClass = 'sch-duty' + (duty.bad || (isStale && duty.text) ? ' invalid' : '');
       if (p.c.type === 'pump') {
         root.append(svg('text', { x: p.x, y: p.y - z.h / 2 - 10, 'text-anchor': 'middle', class: 'sch-title' }, p.c.id));
@@ -283,7 +285,8 @@
     }
     root.append(gLabels);
     if (isStale && state.result) {
-      root.append(svg('text', { x: W / 2, y: H / 2, 'text-anchor': 'middle', class: 'sch-stale' }, 'STALE — NOT CURRENT'));
+      root.append(svg('rect', { x: W / 2 - 230, y: H - 44, width: 460, height: 40, class: 'sch-stale-band' }));
+      root.append(svg('text', { x: W / 2, y: H - 13, 'text-anchor': 'middle', class: 'sch-stale' }, 'STALE — NOT CURRENT'));
     }
   }
 
@@ -637,11 +640,22 @@
     es.addEventListener('result', ev => {
       state.result = JSON.parse(ev.data);
       state.receivedAt = Date.now();
+      state.serverStale = false;
       renderAll();
       refreshDiagram();
     });
     es.addEventListener('alarm', () => loadAlarms());
     state.stream = es;
+  }
+  async function pollStatus() {
+    try {
+      const units = await api('/api/v1/units');
+      const me = units.units.find(u => u.unit === state.unitId);
+      const was = stale();
+      // A result newer than the one the server judged keeps the page live.
+      state.serverStale = !!me && me.status === 'stale' && !!state.result && me.last_result_ts === state.result.ts;
+      if (stale() !== was) renderAll();
+    } catch (e) { /* the next poll tries again */ }
   }
   function selectUnit(id) {
     state.unitId = id;
@@ -685,8 +699,10 @@
       $('stale-banner').textContent = 'The dashboard cannot reach its server: ' + e.message;
     }
     showView(location.hash.slice(1));
-    // Freshness is re-judged every second, so that a silent stream turns the view stale on its own.
+    // Freshness is re-judged every second, so that a silent stream turns the view stale on its own,
+    // and the server's judgement is fetched every few seconds.
     setInterval(() => { const was = $('unit-status').textContent; renderStatus(); if ($('unit-status').textContent !== was) renderAll(); }, 1000);
+    setInterval(pollStatus, 3000);
   }
   document.addEventListener('DOMContentLoaded', start);
 })();

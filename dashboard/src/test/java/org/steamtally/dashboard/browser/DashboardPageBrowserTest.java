@@ -191,6 +191,22 @@ class DashboardPageBrowserTest {
 
     @Test
     @Order(5)
+    void aResultOlderThanTheStaleAgeIsMarkedStaleInWords() throws IOException {
+        driver.get(dash.baseUrl() + "/#cycle");
+        waiting().until(d -> text("#unit-status").equals("LIVE"));
+        dash.now.set(dash.now.get().plusSeconds(11));
+        // The page asks the server every few seconds; the server judges age by the test's clock.
+        waiting().until(d -> text("#unit-status").equals("STALE"));
+        assertTrue(text("#stale-banner").startsWith("STALE"), text("#stale-banner"));
+        assertEquals("STALE", text("#metric-eta .mark"));
+        assertTrue(text("#state-table").contains("STALE"));
+        screenshot("cycle-stale");
+        dash.publish(1.0);
+        waiting().until(d -> text("#unit-status").equals("LIVE"));
+    }
+
+    @Test
+    @Order(6)
     void markupInTagsAndNamesIsShownAsText() throws IOException {
         driver.get(dash.baseUrl() + "/#plant");
         waiting().until(d -> text("#sensor-table").contains(FernholmTestPlant.SCRIPT_TAG));
@@ -204,7 +220,7 @@ class DashboardPageBrowserTest {
     }
 
     @Test
-    @Order(6)
+    @Order(7)
     void trendsSayThatTheyNeedAStore() throws IOException {
         driver.get(dash.baseUrl() + "/#trends");
         waiting().until(d -> text("#trends-message").contains("no result store"));
@@ -212,7 +228,7 @@ class DashboardPageBrowserTest {
     }
 
     @Test
-    @Order(7)
+    @Order(8)
     void acknowledgingNeedsALoginAndWorksAfterIt() throws IOException {
         driver.get(dash.baseUrl() + "/#alarms");
         waiting().until(d -> text("#alarm-table").contains(FernholmTestPlant.SCRIPT_TAG));
