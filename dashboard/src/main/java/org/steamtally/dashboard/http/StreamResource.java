@@ -7,6 +7,8 @@ import io.vertx.core.Vertx;
 import io.vertx.core.http.HttpServerResponse;
 import io.vertx.ext.web.RoutingContext;
 import java.util.concurrent.atomic.AtomicInteger;
+import java.util.concurrent.atomic.AtomicReference;
+import org.steamtally.calc.cycle.UnitResult;
 import org.steamtally.calc.plant.PlantDescription;
 import org.steamtally.dashboard.alarm.AlarmBoard;
 import org.steamtally.dashboard.json.ResultJson;
@@ -31,6 +33,7 @@ final class StreamResource {
     private final Counter sentResults;
     private final Counter sentAlarms;
     private final Counter dropped;
+    private final AtomicReference<Encoded> lastEncoded = new AtomicReference<>();
 
     StreamResource(Vertx vertx, PlantDescription plant, LiveResults live, AlarmBoard alarms, MeterRegistry meters) {
         this.vertx = vertx;
@@ -54,10 +57,10 @@ final class StreamResource {
         Context context = vertx.getOrCreateContext();
         clients.incrementAndGet();
 
-        live.latest(unit).ifPresent(r -> send(resp, "result", ResultJson.write(r), sentResults));
+        live.latest(unit).ifPresent(r -> sendEvent(resp, encoded(r), sentResults));
         LiveResults.Subscription results = live.subscribe(unit, r -> {
-            String json = ResultJson.write(r);
-            context.runOnContext(v -> send(resp, "result", json, sentResults));
+            String event = encoded(r);
+            context.runOnContext(v -> sendEvent(resp, event, sentResults));
         });
         LiveResults.Subscription alarmChanges = alarms.subscribe(unit, a -> {
             String json = AlarmJson.of(a).encode();
@@ -77,6 +80,10 @@ final class StreamResource {
     }
 
     private void send(HttpServerResponse resp, String event, String json, Counter counter) {
+        sendEvent(resp, ServerSentEvents.event(event, Responses.safe(json)), counter);
+    }
+
+    private void sendEvent(HttpServerResponse resp, String event, Counter counter) {
         if (resp.closed()) {
             return;
         }
@@ -84,7 +91,25 @@ final class StreamResource {
             dropped.increment();
             return;
         }
-        resp.write(ServerSentEvents.event(event, Responses.safe(json)));
+        resp.write(event);
         counter.increment();
+    }
+
+    /**
+     * The result's event text, written once per result however many clients watch the unit: the
+     * listeners of one result run one after another on the publishing thread, so the last encoded
+     * result is the one they ask for.
+     */
+    private String encoded(UnitResult r) {
+        Encoded last = lastEncoded.get();
+        if (last != null && last.result() == r) {
+            return last.event();
+        }
+        String event = ServerSentEvents.event("result", Responses.safe(ResultJson.write(r)));
+        lastEncoded.set(new Encoded(r, event));
+        return event;
+    }
+
+    private record Encoded(UnitResult result, String event) {
     }
 }
