@@ -6,7 +6,7 @@
   const state = {
     plant: null, unitId: null, unitDesc: null, result: null, receivedAt: 0, staleAfterS: 10,
     diagram: null, diagramKey: '', system: 'SI', session: null, alarms: [], stream: null, view: 'cycle',
-    serverStale: false,
+    serverStale: false, loadError: null,
   };
 
   // ------------------------------------------------------------------ DOM helpers
@@ -106,7 +106,8 @@
     if (!state.result) {
       s.className = 'status status-none'; s.append('NO DATA');
       banner.hidden = false;
-      banner.append('NO DATA — no result has arrived for this unit. Nothing shown here is current.');
+      banner.append(state.loadError ? 'NO DATA — ' + state.loadError
+        : 'NO DATA — no result has arrived for this unit. Nothing shown here is current.');
     } else if (stale()) {
       const age = Math.round((Date.now() - state.receivedAt) / 1000);
       s.className = 'status status-stale'; s.append('STALE');
@@ -610,6 +611,7 @@
         body: JSON.stringify({ user: $('login-user').value, password: $('login-password').value }),
       });
       $('login-password').value = '';
+      if (!state.plant) await loadPlant();
     } catch (e) {
       $('login-message').textContent = e.message;
     }
@@ -673,6 +675,28 @@
     renderAll();
   }
 
+  // Loads the plant and the units; when anonymous viewing is off this fails until a login succeeds.
+  async function loadPlant() {
+    try {
+      state.plant = await api('/api/v1/plant');
+      state.loadError = null;
+      const units = await api('/api/v1/units');
+      const sel = $('unit-select');
+      clear(sel);
+      for (const u of units.units) sel.append(el('option', { value: u.unit }, u.name + ' (' + u.unit + ')'));
+      sel.onchange = () => selectUnit(sel.value);
+      if (units.units.length) {
+        state.staleAfterS = units.units[0].stale_after_s;
+        setSystem(state.system);
+        selectUnit(units.units[0].unit);
+      }
+    } catch (e) {
+      state.plant = null;
+      state.loadError = e.message;
+      renderStatus();
+    }
+  }
+
   async function start() {
     $('login-form').addEventListener('submit', login);
     $('logout-button').addEventListener('click', logout);
@@ -683,21 +707,7 @@
     try { state.system = localStorage.getItem('steamtally.system') === 'US' ? 'US' : 'SI'; } catch (e) { /* default */ }
     try { state.session = await api('/api/v1/session'); } catch (e) { state.session = null; }
     renderSession();
-    try {
-      state.plant = await api('/api/v1/plant');
-      const units = await api('/api/v1/units');
-      const sel = $('unit-select');
-      for (const u of units.units) sel.append(el('option', { value: u.unit }, u.name + ' (' + u.unit + ')'));
-      sel.addEventListener('change', () => selectUnit(sel.value));
-      if (units.units.length) {
-        state.staleAfterS = units.units[0].stale_after_s;
-        setSystem(state.system);
-        selectUnit(units.units[0].unit);
-      }
-    } catch (e) {
-      $('stale-banner').hidden = false;
-      $('stale-banner').textContent = 'The dashboard cannot reach its server: ' + e.message;
-    }
+    await loadPlant();
     showView(location.hash.slice(1));
     // Freshness is re-judged every second, so that a silent stream turns the view stale on its own,
     // and the server's judgement is fetched every few seconds.

@@ -253,4 +253,19 @@ class DashboardPageBrowserTest {
                 && e.user().equals(TestDashboard.OPERATOR)));
         screenshot("alarms-operator");
     }
+
+    @Test
+    @Order(9)
+    void withAnonymousViewingOffThePageAsksForALoginAndLoadsAfterIt() {
+        try (TestDashboard closed = new TestDashboard(false)) {
+            closed.publish(1.0);
+            driver.get(closed.baseUrl() + "/#cycle");
+            waiting().until(d -> text("#stale-banner").contains("requires a login"));
+            driver.findElement(By.id("login-user")).sendKeys(TestDashboard.VIEWER);
+            driver.findElement(By.id("login-password")).sendKeys(TestDashboard.PASSWORD);
+            driver.findElement(By.id("login-button")).click();
+            waiting().until(d -> text("#metric-eta .value").endsWith("%"));
+            assertEquals("view1 (viewer)", text("#who"));
+        }
+    }
 }
