@@ -331,7 +331,9 @@
     const u = sys();
     const byId = stateById();
     const valid = [...byId.values()].filter(s => s.valid && s.T_K !== null && s.s_J_per_kgK !== null);
-    const tMaxK = Math.max(650, ...valid.map(s => s.T_K + 30));
+    // At least 850 K, so that the axis does not jump when the hottest state turns invalid and the
+    // inset (top left) stays clear of the dome.
+    const tMaxK = Math.max(850, ...valid.map(s => s.T_K + 30));
     const sMin = 0, sMax = 9500, tMinK = 273.15;
     const X = s => M.l + (s - sMin) / (sMax - sMin) * (TW - M.l - M.r);
     const Y = t => TH - M.b - (t - tMinK) / (tMaxK - tMinK) * (TH - M.t - M.b);
