@@ -1,0 +1,271 @@
+package org.steamtally.dashboard.browser;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertNotEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+import static org.junit.jupiter.api.Assertions.fail;
+
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.StandardCopyOption;
+import java.time.Duration;
+import java.util.Comparator;
+import java.util.List;
+import java.util.stream.Stream;
+import org.junit.jupiter.api.AfterAll;
+import org.junit.jupiter.api.Assumptions;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.MethodOrderer;
+import org.junit.jupiter.api.Order;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.TestMethodOrder;
+import org.openqa.selenium.By;
+import org.openqa.selenium.NoAlertPresentException;
+import org.openqa.selenium.OutputType;
+import org.openqa.selenium.StaleElementReferenceException;
+import org.openqa.selenium.TakesScreenshot;
+import org.openqa.selenium.WebDriver;
+import org.openqa.selenium.WebElement;
+import org.openqa.selenium.chrome.ChromeDriver;
+import org.openqa.selenium.chrome.ChromeDriverService;
+import org.openqa.selenium.chrome.ChromeOptions;
+import org.openqa.selenium.support.ui.Select;
+import org.openqa.selenium.support.ui.WebDriverWait;
+import org.steamtally.dashboard.alarm.AlarmView;
+import org.steamtally.dashboard.fixture.FernholmTestPlant;
+import org.steamtally.dashboard.fixture.TestDashboard;
+
+/**
+ * The page in a real headless Chromium (Debian's {@code chromium} and {@code chromium-driver}),
+ * against a running dashboard with in-memory sources. Screenshots of each view are written to
+ * {@code target/screenshots/} for review. Without the browser the test is skipped, or fails when
+ * {@code STEAMTALLY_REQUIRE_SERVICES=1}.
+ */
+@TestMethodOrder(MethodOrderer.OrderAnnotation.class)
+class DashboardPageBrowserTest {
+
+    private static final Path CHROMIUM = Path.of("/usr/bin/chromium");
+    private static final Path CHROMEDRIVER = Path.of("/usr/bin/chromedriver");
+    private static final Path SCREENSHOTS = Path.of("target", "screenshots");
+    // Generous for a loaded two-core machine; the waits poll and return as soon as the page is ready.
+    private static final Duration WAIT = Duration.ofSeconds(30);
+
+    private static TestDashboard dash;
+    private static WebDriver driver;
+    private static Path profile;
+
+    @BeforeAll
+    static void start() throws IOException {
+        if (!Files.isExecutable(CHROMIUM) || !Files.isExecutable(CHROMEDRIVER)) {
+            String message = "the browser test needs " + CHROMIUM + " and " + CHROMEDRIVER
+                    + " (Debian packages chromium and chromium-driver)";
+            if ("1".equals(System.getenv("STEAMTALLY_REQUIRE_SERVICES"))) {
+                fail(message + ", and STEAMTALLY_REQUIRE_SERVICES=1");
+            }
+            Assumptions.abort(message + "; skipped");
+        }
+        Files.createDirectories(SCREENSHOTS);
+        profile = Files.createTempDirectory("steamtally-chromium-");
+        // The system driver, so that Selenium Manager has nothing to download.
+        System.setProperty("webdriver.chrome.driver", CHROMEDRIVER.toString());
+        ChromeOptions options = new ChromeOptions();
+        options.setBinary(CHROMIUM.toFile());
+        options.addArguments("--headless", "--no-sandbox", "--disable-gpu", "--disable-dev-shm-usage",
+                "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run",
+                "--user-data-dir=" + profile, "--window-size=1920,1500", "--force-device-scale-factor=1");
+        ChromeDriverService service = new ChromeDriverService.Builder().usingDriverExecutable(CHROMEDRIVER.toFile())
+                .usingAnyFreePort().build();
+        dash = new TestDashboard();
+        dash.publish(1.0);
+        driver = new ChromeDriver(service, options);
+        driver.get(dash.baseUrl() + "/#cycle");
+    }
+
+    @AfterAll
+    static void stop() throws IOException {
+        if (driver != null) {
+            driver.quit();
+        }
+        if (dash != null) {
+            dash.close();
+        }
+        if (profile != null) {
+            try (Stream<Path> files = Files.walk(profile)) {
+                files.sorted(Comparator.reverseOrder()).forEach(p -> p.toFile().delete());
+            }
+        }
+    }
+
+    /** Waits that look again when the page re-rendered the element in between. */
+    private static WebDriverWait waiting() {
+        WebDriverWait w = new WebDriverWait(driver, WAIT);
+        w.ignoring(StaleElementReferenceException.class);
+        return w;
+    }
+
+    private static String text(String css) {
+        return driver.findElement(By.cssSelector(css)).getText();
+    }
+
+    private static void screenshot(String name) throws IOException {
+        Path shot = ((TakesScreenshot) driver).getScreenshotAs(OutputType.FILE).toPath();
+        Files.copy(shot, SCREENSHOTS.resolve(name + ".png"), StandardCopyOption.REPLACE_EXISTING);
+    }
+
+    private static void assertNoScriptRan() {
+        assertThrows(NoAlertPresentException.class, () -> driver.switchTo().alert(),
+                "markup from data must never run");
+    }
+
+    @Test
+    @Order(1)
+    void theCycleViewShowsLiveValuesAndTheyChangeWhenAResultArrives() throws IOException {
+        waiting().until(d -> text("#metric-eta .value").endsWith("%"));
+        assertEquals("LIVE", text("#unit-status"));
+        String before = text("#metric-eta .value");
+        assertTrue(text("#metric-hr .value").contains("kJ/kWh"));
+
+        dash.now.set(FernholmTestPlant.T0.plusSeconds(1));
+        dash.publish(1.02);
+        waiting().until(d -> !text("#metric-eta .value").equals(before));
+        assertNotEquals(before, text("#metric-eta .value"));
+
+        List<WebElement> points = driver.findElements(By.cssSelector("#ts circle.ts-point"));
+        int states = dash.plant.result(dash.now.get()).states().size();
+        // Every valid state is a point, plus the pump inset's two.
+        assertEquals(states + 2, points.size());
+        assertTrue(driver.findElement(By.cssSelector("#ts polyline.ts-dome")).isDisplayed());
+        assertFalse(driver.findElements(By.cssSelector("#ts polyline.ts-cycle")).isEmpty());
+        List<String> labels = driver.findElements(By.cssSelector("#ts text.ts-label")).stream().map(WebElement::getText)
+                .toList();
+        assertTrue(labels.contains("main_steam"), labels.toString());
+        assertTrue(text("#schematic").contains("boiler"));
+        screenshot("cycle-si");
+    }
+
+    @Test
+    @Order(2)
+    void theAdvisoryBannerIsOnEveryViewAndCannotBeClosed() {
+        for (String view : List.of("cycle", "alarms", "trends", "plant")) {
+            driver.get(dash.baseUrl() + "/#" + view);
+            WebElement banner = waiting().until(d -> d.findElement(By.id("advisory")));
+            assertTrue(banner.isDisplayed(), view);
+            assertTrue(banner.getText().contains("not a protection or control system"), banner.getText());
+            assertTrue(banner.findElements(By.tagName("button")).isEmpty(), "no close button");
+        }
+    }
+
+    @Test
+    @Order(3)
+    void theUsCustomarySystemShowsPsiaFahrenheitAndKiloBtuPerKilowattHour() throws IOException {
+        driver.get(dash.baseUrl() + "/#cycle");
+        waiting().until(d -> text("#metric-eta .value").endsWith("%"));
+        driver.findElement(By.id("system-us")).click();
+        waiting().until(d -> text("#metric-hr .value").contains("kBtu/kWh"));
+        assertTrue(text("#state-table").contains("psia"));
+        assertTrue(text("#state-table").contains("°F"));
+        screenshot("cycle-us");
+        driver.findElement(By.id("system-si")).click();
+        waiting().until(d -> text("#metric-hr .value").contains("kJ/kWh"));
+    }
+
+    @Test
+    @Order(4)
+    void anInvalidStateIsMarkedInWordsAndItsValuesAreNotShown() throws IOException {
+        dash.now.set(FernholmTestPlant.T0.plusSeconds(2));
+        dash.live.publish(dash.plant.resultWithStaleMainSteamTemperature(dash.now.get()));
+        waiting().until(d -> text("#state-table").contains("INVALID"));
+        WebElement row = driver.findElements(By.cssSelector("#state-table tbody tr")).get(0);
+        assertTrue(row.getText().startsWith("main_steam"), row.getText());
+        assertTrue(row.getText().contains("INVALID"), row.getText());
+        assertTrue(text("#metric-eta .mark").startsWith("INVALID") || text("#metric-eta .value").equals("—"),
+                text("#metric-eta"));
+        screenshot("cycle-invalid");
+        dash.now.set(FernholmTestPlant.T0.plusSeconds(3));
+        dash.publish(1.0);
+        waiting().until(d -> !text("#state-table").contains("INVALID"));
+    }
+
+    @Test
+    @Order(5)
+    void aResultOlderThanTheStaleAgeIsMarkedStaleInWords() throws IOException {
+        driver.get(dash.baseUrl() + "/#cycle");
+        waiting().until(d -> text("#unit-status").equals("LIVE"));
+        dash.now.set(dash.now.get().plusSeconds(11));
+        // The page asks the server every few seconds; the server judges age by the test's clock.
+        waiting().until(d -> text("#unit-status").equals("STALE"));
+        assertTrue(text("#stale-banner").startsWith("STALE"), text("#stale-banner"));
+        assertEquals("STALE", text("#metric-eta .mark"));
+        assertTrue(text("#state-table").contains("STALE"));
+        screenshot("cycle-stale");
+        dash.publish(1.0);
+        waiting().until(d -> text("#unit-status").equals("LIVE"));
+    }
+
+    @Test
+    @Order(6)
+    void markupInTagsAndNamesIsShownAsText() throws IOException {
+        driver.get(dash.baseUrl() + "/#plant");
+        waiting().until(d -> text("#sensor-table").contains(FernholmTestPlant.SCRIPT_TAG));
+        assertNoScriptRan();
+        List<String> options = new Select(driver.findElement(By.id("unit-select"))).getOptions().stream()
+                .map(WebElement::getText).toList();
+        assertTrue(options.stream().anyMatch(o -> o.contains(FernholmTestPlant.SCRIPT_NAME)), options.toString());
+        assertTrue(driver.findElements(By.cssSelector("#sensor-table script, #unit-select img")).isEmpty(),
+                "no element was made from data");
+        screenshot("plant");
+    }
+
+    @Test
+    @Order(7)
+    void trendsSayThatTheyNeedAStore() throws IOException {
+        driver.get(dash.baseUrl() + "/#trends");
+        waiting().until(d -> text("#trends-message").contains("no result store"));
+        screenshot("trends");
+    }
+
+    @Test
+    @Order(8)
+    void acknowledgingNeedsALoginAndWorksAfterIt() throws IOException {
+        driver.get(dash.baseUrl() + "/#alarms");
+        waiting().until(d -> text("#alarm-table").contains(FernholmTestPlant.SCRIPT_TAG));
+        assertNoScriptRan();
+        assertTrue(driver.findElements(By.cssSelector("button[data-action=ack]")).isEmpty(),
+                "no acknowledge button before login");
+        assertTrue(text("#alarm-table").contains("log in to act"));
+        screenshot("alarms-logged-out");
+
+        driver.findElement(By.id("login-user")).sendKeys(TestDashboard.OPERATOR);
+        driver.findElement(By.id("login-password")).sendKeys(TestDashboard.PASSWORD);
+        driver.findElement(By.id("login-button")).click();
+        waiting().until(d -> text("#who").equals("ops1 (operator)"));
+        By ack = By.cssSelector("button[data-action=ack][data-alarm='" + TestDashboard.SENSOR_ALARM + "']");
+        waiting().until(d -> !d.findElements(ack).isEmpty());
+        driver.findElement(ack).click();
+        waiting().until(d -> dash.alarms.list(FernholmTestPlant.UNIT).stream()
+                .anyMatch(a -> a.id().equals(TestDashboard.SENSOR_ALARM) && a.state() == AlarmView.State.ACKNOWLEDGED));
+        waiting().until(d -> d.findElement(By.cssSelector("tr[data-alarm-row='" + TestDashboard.SENSOR_ALARM + "']"))
+                .getText().contains("ACKNOWLEDGED"));
+        assertTrue(dash.audit.entries().stream().anyMatch(e -> e.action().equals("alarm.acknowledge")
+                && e.user().equals(TestDashboard.OPERATOR)));
+        screenshot("alarms-operator");
+    }
+
+    @Test
+    @Order(9)
+    void withAnonymousViewingOffThePageAsksForALoginAndLoadsAfterIt() {
+        try (TestDashboard closed = new TestDashboard(false)) {
+            closed.publish(1.0);
+            driver.get(closed.baseUrl() + "/#cycle");
+            waiting().until(d -> text("#stale-banner").contains("requires a login"));
+            driver.findElement(By.id("login-user")).sendKeys(TestDashboard.VIEWER);
+            driver.findElement(By.id("login-password")).sendKeys(TestDashboard.PASSWORD);
+            driver.findElement(By.id("login-button")).click();
+            waiting().until(d -> text("#metric-eta .value").endsWith("%"));
+            assertEquals("view1 (viewer)", text("#who"));
+        }
+    }
+}
