@@ -1,8 +1,5 @@
 package org.steamtally.collector.mqtt;
 
-import java.time.Duration;
-import java.util.concurrent.atomic.AtomicLong;
-import org.eclipse.paho.client.mqttv3.DisconnectedBufferOptions;
 import org.eclipse.paho.client.mqttv3.IMqttActionListener;
 import org.eclipse.paho.client.mqttv3.IMqttToken;
 import org.eclipse.paho.client.mqttv3.MqttAsyncClient;
@@ -12,29 +9,24 @@ import org.eclipse.paho.client.mqttv3.MqttMessage;
 import org.eclipse.paho.client.mqttv3.persist.MemoryPersistence;
 
 /** {@link ReadingPublisher} over MQTT 3.1.1. */
-final class Mqtt3Publisher implements ReadingPublisher {
+final class Mqtt3Publisher extends WindowedPublisher {
 
     private final MqttAsyncClient client;
     private final MqttConnectOptions connectOptions;
-    private final PublishWindow window;
-    private final AtomicLong completed = new AtomicLong();
-    private final AtomicLong failed = new AtomicLong();
     private final IMqttActionListener release = new IMqttActionListener() {
         @Override
         public void onSuccess(IMqttToken token) {
-            completed.incrementAndGet();
-            window.release();
+            done(true);
         }
 
         @Override
         public void onFailure(IMqttToken token, Throwable exception) {
-            failed.incrementAndGet();
-            window.release();
+            done(false);
         }
     };
 
     Mqtt3Publisher(PublisherOptions options) {
-        window = new PublishWindow(options.window());
+        super(options);
         try {
             client = new MqttAsyncClient(options.brokerUrls().get(0), options.clientId(), new MemoryPersistence());
             connectOptions = new MqttConnectOptions();
@@ -45,72 +37,33 @@ final class Mqtt3Publisher implements ReadingPublisher {
             connectOptions.setConnectionTimeout(ReconnectingSource.HANDSHAKE_TIMEOUT_S);
             // The client's own limit sits at the window, so the window is what stops a publisher first.
             connectOptions.setMaxInflight(options.window());
-            if (options.bufferOffline()) {
-                DisconnectedBufferOptions buffer = new DisconnectedBufferOptions();
-                buffer.setBufferEnabled(true);
-                buffer.setBufferSize(options.window());
-                buffer.setDeleteOldestMessages(false);
-                buffer.setPersistBuffer(false);
-                client.setBufferOpts(buffer);
-            }
-            connect();
+            connectClient();
         } catch (MqttException e) {
             throw new IllegalStateException("publisher cannot connect to " + options.brokerUrls() + ": " + e, e);
         }
     }
 
-    private void connect() throws MqttException {
+    @Override
+    protected void connectClient() throws MqttException {
         client.connect(connectOptions).waitForCompletion(ReconnectingSource.HANDSHAKE_TIMEOUT_S * 1000L);
     }
 
     @Override
-    public void publish(String topic, byte[] payload, int qos) throws InterruptedException {
-        if (!window.acquire(STALL_TIMEOUT.toMillis())) {
-            throw new IllegalStateException("no publication completed within " + STALL_TIMEOUT.toSeconds()
-                    + " s: " + window.inFlight() + " in flight");
-        }
+    protected void send(String topic, byte[] payload, int qos) throws MqttException {
         MqttMessage message = new MqttMessage(payload);
         message.setQos(qos);
-        try {
-            client.publish(topic, message, null, release);
-        } catch (MqttException | RuntimeException e) {
-            window.release();
-            throw new IllegalStateException("publish to " + topic + " refused: " + e, e);
-        }
+        client.publish(topic, message, null, release);
     }
 
     @Override
-    public int inFlight() {
-        return window.inFlight();
-    }
-
-    @Override
-    public long completed() {
-        return completed.get();
-    }
-
-    @Override
-    public long failed() {
-        return failed.get();
-    }
-
-    @Override
-    public boolean awaitIdle(Duration timeout) throws InterruptedException {
-        return window.awaitEmpty(timeout.toMillis());
+    protected boolean isNotConnected(Exception e) {
+        return e instanceof MqttException m && (m.getReasonCode() == MqttException.REASON_CODE_CLIENT_NOT_CONNECTED
+                || m.getReasonCode() == MqttException.REASON_CODE_CONNECTION_LOST);
     }
 
     @Override
     public boolean isConnected() {
         return client.isConnected();
-    }
-
-    @Override
-    public void reconnect() {
-        try {
-            connect();
-        } catch (MqttException e) {
-            throw new IllegalStateException("publisher cannot reconnect: " + e, e);
-        }
     }
 
     @Override
