@@ -58,7 +58,8 @@ import org.yaml.snakeyaml.nodes.SequenceNode;
  * problems are collected and thrown together.
  *
  * <p>Top-level sections {@code alarms} and {@code collector} are reserved for the alarm and
- * collector settings that live in the same file; this loader accepts them unread. Any other unknown
+ * collector settings that live in the same file; this loader accepts them unread
+ * ({@link CollectorSectionReader} reads {@code collector}). Any other unknown
  * key, at any level, is a problem.
  */
 public final class PlantDescriptionLoader {
