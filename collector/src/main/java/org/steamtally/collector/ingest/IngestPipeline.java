@@ -80,6 +80,8 @@ public final class IngestPipeline implements AutoCloseable {
     private final long maxPastAgeMillis;
     private final long latenessMillis;
     private final long maxQueueBytes;
+    /** Topics under the dead-letter prefix are never dead-lettered again, should a filter cover them. */
+    private final Optional<String> deadLetterPrefix;
 
     private final ArrayBlockingQueue<Incoming> queue;
     private final AtomicLong queuedBytes = new AtomicLong();
@@ -130,6 +132,7 @@ public final class IngestPipeline implements AutoCloseable {
         this.maxPastAgeMillis = settings.maxPastAge().toMillis();
         this.latenessMillis = settings.allowedLateness().toMillis();
         this.maxQueueBytes = settings.queueBytes();
+        this.deadLetterPrefix = settings.deadLetterTopic().map(t -> t + "/");
         this.queue = new ArrayBlockingQueue<>(settings.queueMessages());
         this.log = new RateLimitedLog(LOG, clock, LOG_INTERVAL_MS);
 
@@ -417,6 +420,9 @@ public final class IngestPipeline implements AutoCloseable {
         String sensor = t == null ? NO_SENSOR : t.sensor().id();
         log.warn(sensor + "/" + reason.tag(), "refused " + reason.tag() + " on topic " + m.topic()
                 + (t == null ? "" : " (sensor " + sensor + ")") + ": " + message + ": " + excerpt);
+        if (deadLetterPrefix.isPresent() && m.topic().startsWith(deadLetterPrefix.get())) {
+            return;
+        }
         try {
             deadLetters.refused(m.topic(), m.payload() == null ? new byte[0] : m.payload(), reason, message);
         } catch (RuntimeException e) {

@@ -103,7 +103,8 @@ abstract class ReconnectingSource implements MessageSource {
 
     /** Called by a subclass when the client reports the connection lost. */
     protected void lost(Throwable cause) {
-        if (closed) {
+        // Only a loss of an established connection schedules an attempt; a failed attempt schedules its own.
+        if (closed || watch.state() != ConnectionState.CONNECTED) {
             return;
         }
         watch.set(ConnectionState.DISCONNECTED, Optional.ofNullable(cause));

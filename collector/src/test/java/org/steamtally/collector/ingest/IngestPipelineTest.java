@@ -294,6 +294,15 @@ class IngestPipelineTest {
     }
 
     @Test
+    void refusedMessageUnderTheDeadLetterTopicIsNotDeadLetteredAgain() {
+        IngestPipeline p = pipeline(settings().deadLetterTopic("fernholm/deadletter"));
+        send(p, "fernholm/deadletter/not_json", "{\"topic\": \"x\"}");
+        assertAll(
+                () -> assertEquals(1.0, rejected(IngestPipeline.NO_SENSOR, RejectionReason.UNMAPPED_TOPIC)),
+                () -> assertEquals(List.of(), deadLetters, "no loop through the dead-letter topic"));
+    }
+
+    @Test
     void workerThreadDeliversSnapshotsWithoutTestDrivenSteps() throws InterruptedException {
         IngestPipeline p = new IngestPipeline(TestPlant.PLANT, TestPlant.topics(),
                 settings().snapshotPeriod(Duration.ofMillis(10)).build(), registry, java.time.Clock.systemUTC(),
