@@ -1,5 +1,6 @@
 package org.steamtally.collector;
 
+import static org.junit.jupiter.api.Assertions.assertAll;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -251,6 +252,35 @@ class MqttIngestTest {
         awaitAllSeen(900);
         awaitTrue("every reading accepted once", () -> accepted() == 900);
         assertTrue(registry.find("steamtally.mqtt.connects").counter().count() >= 2, "reconnected at least once");
+    }
+
+    @Test
+    void daemonsInOneSharedSubscriptionGroupSplitTheReadingsBetweenThem() throws Exception {
+        if (!broker.external()) {
+            TestServices.skipOrFail("shared subscriptions need MQTT 5: set " + TestServices.MQTT_URL_VARIABLE
+                    + " to an MQTT 5 broker");
+        }
+        Set<Integer> second = ConcurrentHashMap.newKeySet();
+        CollectorSettings a = settings("steamtally-test-share-a-" + run).toBuilder().sharedGroup("g" + run).build();
+        CollectorSettings b = CollectorSettings.builder(List.of(broker.serverUri()), "steamtally-test-share-b-" + run)
+                .protocol(protocol).topicTemplate("steamtally/test/{site}/{unit}/{sensor}").sharedGroup("g" + run)
+                .build();
+        source(a, pipeline(a));
+        MessageSource other = MessageSources.open(b, TopicMap.of(plant, b.topicTemplate()).subscriptionFilters(),
+                ConnectionListener.NONE, new SimpleMeterRegistry(), Clock.systemUTC(), System::getenv);
+        open.add(other);
+        other.start((t, payload) -> second.add(sequenceOf(payload)));
+        awaitTrue("the second daemon connects", () -> other.state() == ConnectionState.CONNECTED);
+        ReadingPublisher pub = publisher(false);
+        publishRange(pub, 0, 400);
+        awaitTrue("all 400 readings reached one daemon or the other", () -> seen.size() + second.size() >= 400);
+        Set<Integer> both = new java.util.HashSet<>(seen);
+        both.retainAll(second);
+        assertAll(
+                () -> assertTrue(!seen.isEmpty() && !second.isEmpty(), "each daemon got a share: " + seen.size()
+                        + " and " + second.size()),
+                () -> assertEquals(Set.of(), both, "no reading went to both"),
+                () -> assertEquals(400, seen.size() + second.size()));
     }
 
     private static void control(String ctl, String action) throws IOException, InterruptedException {
