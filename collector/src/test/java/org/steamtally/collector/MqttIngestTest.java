@@ -36,6 +36,7 @@ import org.steamtally.collector.mqtt.ConnectionListener;
 import org.steamtally.collector.mqtt.ConnectionState;
 import org.steamtally.collector.mqtt.MessageSource;
 import org.steamtally.collector.mqtt.MessageSources;
+import org.steamtally.collector.mqtt.MqttCollector;
 import org.steamtally.collector.mqtt.PublisherOptions;
 import org.steamtally.collector.mqtt.ReadingPublisher;
 import org.steamtally.collector.mqtt.ReadingPublishers;
@@ -157,23 +158,28 @@ class MqttIngestTest {
 
     @Test
     void readingsPublishedAtQosOneReachTheUnitsSnapshots() throws Exception {
-        CollectorSettings s = settings("steamtally-test-" + run);
-        IngestPipeline p = pipeline(s);
-        source(s, p);
+        CollectorSettings s = settings("steamtally-test-" + run).toBuilder()
+                .deadLetterTopic("steamtally/test/" + site + "-dead").build();
+        MqttCollector collector = MqttCollector.start(plant, s, registry, Clock.systemUTC(), ConnectionListener.NONE,
+                System::getenv);
+        open.add(collector);
+        awaitTrue("the collector connects", () -> collector.connectionState() == ConnectionState.CONNECTED);
         ReadingPublisher pub = publisher(false);
         publishRange(pub, 0, 500);
-        awaitAllSeen(500);
+        pub.publish(topic, "{\"value\": \"five\"}".getBytes(StandardCharsets.UTF_8), QOS_1);
         awaitTrue("every reading accepted", () -> accepted() == 500);
         // Snapshots taken before the last reading was aligned carry an older value; wait for the newest.
         awaitTrue("a snapshot carries the newest reading, 499", () -> {
             try {
-                Optional<Snapshot> s1 = p.slot("unit1").take(Duration.ofMillis(500));
+                Optional<Snapshot> s1 = collector.slot("unit1").take(Duration.ofMillis(500));
                 return s1.isPresent() && s1.get().valuesSi()[0] == 499.0;
             } catch (InterruptedException e) {
                 Thread.currentThread().interrupt();
                 return false;
             }
         });
+        awaitTrue("the refused reading went to the dead-letter topic",
+                () -> registry.find("steamtally.deadletters.sent").counter().count() == 1.0);
     }
 
     @Test
