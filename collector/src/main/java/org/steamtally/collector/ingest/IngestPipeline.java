@@ -232,7 +232,7 @@ public final class IngestPipeline implements AutoCloseable {
                 return;
             } catch (RuntimeException e) {
                 // A fault of ours must not stop ingestion; it is logged (rate-limited) and the loop goes on.
-                log.warn("worker-fault", "ingest worker: unexpected " + e);
+                log.warn("worker-fault", () -> "ingest worker: unexpected " + e);
             }
         }
     }
@@ -418,7 +418,7 @@ public final class IngestPipeline implements AutoCloseable {
 
     private void fault(Incoming m, TopicMap.Target t, RejectionReason reason, String message, String excerpt) {
         String sensor = t == null ? NO_SENSOR : t.sensor().id();
-        log.warn(sensor + "/" + reason.tag(), "refused " + reason.tag() + " on topic " + m.topic()
+        log.warn(sensor + "/" + reason.tag(), () -> "refused " + reason.tag() + " on topic " + m.topic()
                 + (t == null ? "" : " (sensor " + sensor + ")") + ": " + message + ": " + excerpt);
         if (deadLetterPrefix.isPresent() && m.topic().startsWith(deadLetterPrefix.get())) {
             return;
@@ -426,7 +426,7 @@ public final class IngestPipeline implements AutoCloseable {
         try {
             deadLetters.refused(m.topic(), m.payload() == null ? new byte[0] : m.payload(), reason, message);
         } catch (RuntimeException e) {
-            log.warn("dead-letter", "dead-letter sink failed: " + e);
+            log.warn("dead-letter", () -> "dead-letter sink failed: " + e);
         }
     }
 

@@ -3,6 +3,7 @@ package org.steamtally.collector.ingest;
 import java.time.Clock;
 import java.util.HashMap;
 import java.util.Map;
+import java.util.function.Supplier;
 import org.slf4j.Logger;
 
 /**
@@ -24,8 +25,11 @@ final class RateLimitedLog {
         this.intervalMillis = intervalMillis;
     }
 
-    /** Logs {@code line} at WARN unless the key was logged within the interval; counts it otherwise. */
-    boolean warn(String key, String line) {
+    /**
+     * Logs the line at WARN unless the key was logged within the interval; counts it otherwise. The line
+     * is built only when it is logged, so a flood of refusals costs no string building.
+     */
+    boolean warn(String key, Supplier<String> lineSupplier) {
         long now = clock.millis();
         long[] state = lastAndHeld.get(key);
         if (state != null && now - state[0] < intervalMillis) {
@@ -40,6 +44,7 @@ final class RateLimitedLog {
         state[0] = now;
         state[1] = 0;
         if (log.isWarnEnabled()) {
+            String line = lineSupplier.get();
             log.warn(held == 0 ? line : line + " (" + held + " more like it held back)");
         }
         return true;
