@@ -65,6 +65,7 @@ public final class IngestLoadDriver {
     private static final int SENSORS = 20;
     private static final int WINDOW = 1000;
     private static final int LATENCY_RATE = 10_000;
+    private static final int LATENCY_WINDOW = 100;
     /** A reading of about 120 bytes, as the collector's publishers send them. */
     private static final String PAYLOAD = "{\"value\": %d, \"ts\": %d, \"unit\": \"kg/s\", \"quality\": \"good\", "
             + "\"src\": \"fernholm-bench-gw-01\", \"pad\": \"%s\"}";
@@ -125,8 +126,12 @@ public final class IngestLoadDriver {
     }
 
     private static ReadingPublisher publisher(String url, String id) {
+        return publisher(url, id, WINDOW);
+    }
+
+    private static ReadingPublisher publisher(String url, String id, int window) {
         return ReadingPublishers.connect(new PublisherOptions(List.of(url), MqttProtocol.MQTT_5, "bench-pub-" + id,
-                WINDOW, true, false));
+                window, true, false));
     }
 
     /** Publishes n readings as fast as the window allows; timestamps 1 ms apart in the recent past. */
@@ -315,7 +320,8 @@ public final class IngestLoadDriver {
         }, "bench-consumer");
         consumer.start();
 
-        ReadingPublisher pub = publisher(url, id);
+        // A narrower window than for throughput: at a paced rate a full window is only queueing in the publisher.
+        ReadingPublisher pub = publisher(url, id, LATENCY_WINDOW);
         long start = System.nanoTime();
         long interval = 1_000_000_000L / LATENCY_RATE;
         for (int i = 0; i < n; i++) {
