@@ -289,6 +289,21 @@ class MqttIngestTest {
                 () -> assertEquals(400, seen.size() + second.size()));
     }
 
+    @Test
+    void brokerThatRefusesIsPassedOverForTheNextUrl() throws Exception {
+        int closedPort;
+        try (java.net.ServerSocket socket = new java.net.ServerSocket(0, 1, java.net.InetAddress.getLoopbackAddress())) {
+            closedPort = socket.getLocalPort();
+        }
+        CollectorSettings s = CollectorSettings.builder(
+                        List.of("tcp://127.0.0.1:" + closedPort, broker.serverUri()), "steamtally-test-failover-" + run)
+                .protocol(protocol).topicTemplate("steamtally/test/{site}/{unit}/{sensor}").build();
+        source(s, pipeline(s));
+        ReadingPublisher pub = publisher(false);
+        publishRange(pub, 0, 10);
+        awaitAllSeen(10);
+    }
+
     private static void control(String ctl, String action) throws IOException, InterruptedException {
         Process process = new ProcessBuilder(ctl, action).redirectErrorStream(true).start();
         String out = new String(process.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
