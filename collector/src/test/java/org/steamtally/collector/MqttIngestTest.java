@@ -304,6 +304,23 @@ class MqttIngestTest {
         awaitAllSeen(10);
     }
 
+    @Test
+    void mqtt311SessionAgainstTheExternalBrokerPicksUpReadingsPublishedWhileAway() throws Exception {
+        if (!broker.external()) {
+            // The embedded broker speaks only 3.1.1, so the tests above already run this protocol there.
+            org.junit.jupiter.api.Assumptions.abort("3.1.1 is what the embedded broker runs everywhere above");
+        }
+        CollectorSettings s = settings("steamtally-test-311-" + run).toBuilder().protocol(MqttProtocol.MQTT_3_1_1)
+                .build();
+        IngestPipeline p = pipeline(s);
+        source(s, p).close();
+        ReadingPublisher pub = publisher(false);
+        publishRange(pub, 0, 100);
+        assertTrue(pub.awaitIdle(DEADLINE));
+        source(s, p);
+        awaitAllSeen(100);
+    }
+
     private static void control(String ctl, String action) throws IOException, InterruptedException {
         Process process = new ProcessBuilder(ctl, action).redirectErrorStream(true).start();
         String out = new String(process.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
