@@ -61,8 +61,9 @@ import org.yaml.snakeyaml.nodes.SequenceNode;
  *
  * <p>Top-level sections {@code alarms} and {@code collector} are reserved for the alarm and
  * collector settings that live in the same file; this loader accepts them unread, except that the
- * problems {@link AlarmSettingsLoader} finds in {@code alarms} are reported with its own. Any other
- * unknown key, at any level, is a problem.
+ * problems {@link AlarmSettingsLoader} finds in {@code alarms} are reported with its own
+ * ({@link CollectorSectionReader} reads {@code collector}). Any other unknown key, at any level, is
+ * a problem.
  */
 public final class PlantDescriptionLoader {
 

@@ -1,0 +1,129 @@
+package org.steamtally.collector.mqtt;
+
+import java.util.List;
+import java.util.function.UnaryOperator;
+import org.eclipse.paho.client.mqttv3.IMqttActionListener;
+import org.eclipse.paho.client.mqttv3.IMqttDeliveryToken;
+import org.eclipse.paho.client.mqttv3.IMqttToken;
+import org.eclipse.paho.client.mqttv3.MqttAsyncClient;
+import org.eclipse.paho.client.mqttv3.MqttCallbackExtended;
+import org.eclipse.paho.client.mqttv3.MqttConnectOptions;
+import org.eclipse.paho.client.mqttv3.MqttException;
+import org.eclipse.paho.client.mqttv3.MqttMessage;
+import org.eclipse.paho.client.mqttv3.persist.MemoryPersistence;
+import org.steamtally.collector.config.CollectorSettings;
+
+/**
+ * {@link MessageSource} over MQTT 3.1.1 (Eclipse Paho {@code org.eclipse.paho.client.mqttv3}). A 3.1.1
+ * session has no expiry: with a session expiry above zero the session is persistent (clean session
+ * false) and the broker keeps it as long as it is configured to.
+ */
+final class Mqtt3Source extends ReconnectingSource {
+
+    /** MQTT 3.1.1, 3.9.3: SUBACK return code 0x80 is a failure. */
+    private static final int FAILURE = 0x80;
+
+    private final MqttAsyncClient client;
+    private final MqttConnectOptions options;
+
+    Mqtt3Source(CollectorSettings settings, List<String> filters, ConnectionWatch watch, Backoff backoff,
+                UnaryOperator<String> environment) throws MqttException {
+        super(settings, filters, watch, backoff);
+        client = new MqttAsyncClient(settings.brokerUrls().get(0), settings.clientId(), new MemoryPersistence());
+        options = new MqttConnectOptions();
+        options.setMqttVersion(MqttConnectOptions.MQTT_VERSION_3_1_1);
+        options.setServerURIs(settings.brokerUrls().toArray(new String[0]));
+        options.setAutomaticReconnect(false);
+        options.setCleanSession(settings.sessionExpiry().isZero());
+        options.setConnectionTimeout(HANDSHAKE_TIMEOUT_S);
+        options.setKeepAliveInterval(30);
+        options.setMaxInflight(SIDE_PUBLISH_WINDOW);
+        settings.username().ifPresent(u -> options.setUserName(new String(u.resolve(environment))));
+        settings.password().ifPresent(p -> options.setPassword(p.resolve(environment)));
+        TlsSockets.socketFactory(settings, environment).ifPresent(options::setSocketFactory);
+        client.setCallback(new Callback());
+    }
+
+    @Override
+    protected void connectAndSubscribe() throws Exception {
+        client.connect(options).waitForCompletion(HANDSHAKE_TIMEOUT_S * 1000L);
+        List<String> subscribed = subscribedFilters();
+        int[] qos = new int[subscribed.size()];
+        java.util.Arrays.fill(qos, QOS_AT_LEAST_ONCE);
+        IMqttToken token = client.subscribe(subscribed.toArray(new String[0]), qos);
+        token.waitForCompletion(HANDSHAKE_TIMEOUT_S * 1000L);
+        int[] granted = token.getGrantedQos();
+        for (int i = 0; granted != null && i < granted.length; i++) {
+            if (granted[i] == FAILURE) {
+                throw new IllegalStateException("broker refused the subscription to "
+                        + subscribed.get(Math.min(i, subscribed.size() - 1)));
+            }
+        }
+    }
+
+    @Override
+    protected void publishAsync(String topic, byte[] payload, int qos) throws Exception {
+        MqttMessage message = new MqttMessage(payload);
+        message.setQos(qos);
+        client.publish(topic, message, null, new IMqttActionListener() {
+            @Override
+            public void onSuccess(IMqttToken asyncActionToken) {
+                sideWindow.release();
+            }
+
+            @Override
+            public void onFailure(IMqttToken asyncActionToken, Throwable exception) {
+                sideWindow.release();
+            }
+        });
+    }
+
+    @Override
+    protected void disconnectQuietly() {
+        try {
+            if (client.isConnected()) {
+                client.disconnect().waitForCompletion(HANDSHAKE_TIMEOUT_S * 1000L);
+            }
+        } catch (MqttException | RuntimeException e) {
+            // Gone already; nothing else to release here.
+        }
+    }
+
+    @Override
+    protected void closeClient() {
+        try {
+            client.close();
+        } catch (MqttException | RuntimeException e) {
+            // Closing a client that never connected may complain; it holds nothing more.
+        }
+    }
+
+    @Override
+    protected String describeServer() {
+        String uri = client.getCurrentServerURI();
+        return uri == null ? String.join(",", settings.brokerUrls()) : uri;
+    }
+
+    private final class Callback implements MqttCallbackExtended {
+        @Override
+        public void messageArrived(String topic, MqttMessage message) {
+            MessageHandler h = handler;
+            if (h != null) {
+                h.onMessage(topic, message.getPayload());
+            }
+        }
+
+        @Override
+        public void connectionLost(Throwable cause) {
+            lost(cause);
+        }
+
+        @Override
+        public void deliveryComplete(IMqttDeliveryToken token) {
+        }
+
+        @Override
+        public void connectComplete(boolean reconnect, String serverURI) {
+        }
+    }
+}

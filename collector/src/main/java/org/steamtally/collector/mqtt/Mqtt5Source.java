@@ -1,0 +1,143 @@
+package org.steamtally.collector.mqtt;
+
+import java.nio.charset.StandardCharsets;
+import java.util.List;
+import java.util.function.UnaryOperator;
+import org.eclipse.paho.mqttv5.client.IMqttToken;
+import org.eclipse.paho.mqttv5.client.MqttActionListener;
+import org.eclipse.paho.mqttv5.client.MqttAsyncClient;
+import org.eclipse.paho.mqttv5.client.MqttCallback;
+import org.eclipse.paho.mqttv5.client.MqttConnectionOptions;
+import org.eclipse.paho.mqttv5.client.MqttDisconnectResponse;
+import org.eclipse.paho.mqttv5.client.persist.MemoryPersistence;
+import org.eclipse.paho.mqttv5.common.MqttException;
+import org.eclipse.paho.mqttv5.common.MqttMessage;
+import org.eclipse.paho.mqttv5.common.MqttSubscription;
+import org.eclipse.paho.mqttv5.common.packet.MqttProperties;
+import org.steamtally.collector.config.CollectorSettings;
+
+/** {@link MessageSource} over MQTT 5 (Eclipse Paho {@code org.eclipse.paho.mqttv5.client}). */
+final class Mqtt5Source extends ReconnectingSource {
+
+    /** MQTT 5.0, 3.9.3: SUBACK reason codes from 0x80 on are failures. */
+    private static final int FIRST_FAILURE_CODE = 0x80;
+
+    private final MqttAsyncClient client;
+    private final MqttConnectionOptions options;
+
+    Mqtt5Source(CollectorSettings settings, List<String> filters, ConnectionWatch watch, Backoff backoff,
+                UnaryOperator<String> environment) throws MqttException {
+        super(settings, filters, watch, backoff);
+        client = new MqttAsyncClient(settings.brokerUrls().get(0), settings.clientId(), new MemoryPersistence());
+        options = new MqttConnectionOptions();
+        options.setServerURIs(settings.brokerUrls().toArray(new String[0]));
+        options.setAutomaticReconnect(false);
+        long expiry = settings.sessionExpiry().toSeconds();
+        options.setCleanStart(expiry == 0);
+        options.setSessionExpiryInterval(expiry);
+        options.setConnectionTimeout(HANDSHAKE_TIMEOUT_S);
+        options.setKeepAliveInterval(30);
+        settings.username().ifPresent(u -> options.setUserName(new String(u.resolve(environment))));
+        settings.password().ifPresent(p -> options.setPassword(
+                new String(p.resolve(environment)).getBytes(StandardCharsets.UTF_8)));
+        TlsSockets.socketFactory(settings, environment).ifPresent(options::setSocketFactory);
+        client.setCallback(new Callback());
+    }
+
+    @Override
+    protected void connectAndSubscribe() throws Exception {
+        client.connect(options).waitForCompletion(HANDSHAKE_TIMEOUT_S * 1000L);
+        List<String> subscribed = subscribedFilters();
+        MqttSubscription[] subs = new MqttSubscription[subscribed.size()];
+        for (int i = 0; i < subs.length; i++) {
+            subs[i] = new MqttSubscription(subscribed.get(i), QOS_AT_LEAST_ONCE);
+        }
+        IMqttToken token = client.subscribe(subs);
+        token.waitForCompletion(HANDSHAKE_TIMEOUT_S * 1000L);
+        int[] codes = token.getReasonCodes();
+        for (int i = 0; codes != null && i < codes.length; i++) {
+            if (codes[i] >= FIRST_FAILURE_CODE) {
+                throw new IllegalStateException("broker refused the subscription to "
+                        + subscribed.get(Math.min(i, subscribed.size() - 1)) + " with reason code 0x"
+                        + Integer.toHexString(codes[i]));
+            }
+        }
+    }
+
+    @Override
+    protected void publishAsync(String topic, byte[] payload, int qos) throws Exception {
+        MqttMessage message = new MqttMessage(payload);
+        message.setQos(qos);
+        client.publish(topic, message, null, new MqttActionListener() {
+            @Override
+            public void onSuccess(IMqttToken asyncActionToken) {
+                sideWindow.release();
+            }
+
+            @Override
+            public void onFailure(IMqttToken asyncActionToken, Throwable exception) {
+                sideWindow.release();
+            }
+        });
+    }
+
+    @Override
+    protected void disconnectQuietly() {
+        try {
+            if (client.isConnected()) {
+                client.disconnect().waitForCompletion(HANDSHAKE_TIMEOUT_S * 1000L);
+            }
+        } catch (MqttException | RuntimeException e) {
+            // Gone already; nothing else to release here.
+        }
+    }
+
+    @Override
+    protected void closeClient() {
+        try {
+            client.close();
+        } catch (MqttException | RuntimeException e) {
+            // Closing a client that never connected may complain; it holds nothing more.
+        }
+    }
+
+    @Override
+    protected String describeServer() {
+        String uri = client.getCurrentServerURI();
+        return uri == null ? String.join(",", settings.brokerUrls()) : uri;
+    }
+
+    private final class Callback implements MqttCallback {
+        @Override
+        public void messageArrived(String topic, MqttMessage message) {
+            MessageHandler h = handler;
+            if (h != null) {
+                h.onMessage(topic, message.getPayload());
+            }
+        }
+
+        @Override
+        public void disconnected(MqttDisconnectResponse response) {
+            lost(response.getException() != null ? response.getException()
+                    : new IllegalStateException("broker disconnected: reason code " + response.getReturnCode()
+                    + (response.getReasonString() == null ? "" : " " + response.getReasonString())));
+        }
+
+        @Override
+        public void mqttErrorOccurred(MqttException exception) {
+            // Followed by disconnected() when it ends the connection.
+        }
+
+        @Override
+        public void deliveryComplete(IMqttToken token) {
+        }
+
+        @Override
+        public void connectComplete(boolean reconnect, String serverURI) {
+        }
+
+        @Override
+        public void authPacketArrived(int reasonCode, MqttProperties properties) {
+        }
+    }
+}

@@ -1,0 +1,108 @@
+package org.steamtally.collector.mqtt;
+
+import java.time.Duration;
+import java.util.ArrayDeque;
+import java.util.concurrent.atomic.AtomicLong;
+
+/**
+ * What the MQTT 5 and 3.1.1 publishers share: the {@link PublishWindow}, the counts and the offline
+ * buffer. A publication made while disconnected is held here (its window slot with it, so the buffer is
+ * bounded by the window) and sent by {@link #reconnect}; Paho's own offline buffer works only together
+ * with its automatic reconnect, which would take the order of events out of the caller's hands.
+ */
+abstract class WindowedPublisher implements ReadingPublisher {
+
+    private record Held(String topic, byte[] payload, int qos) {
+    }
+
+    protected final PublishWindow window;
+    private final boolean bufferOffline;
+    private final ArrayDeque<Held> held = new ArrayDeque<>();
+    private final AtomicLong completed = new AtomicLong();
+    private final AtomicLong failed = new AtomicLong();
+
+    WindowedPublisher(PublisherOptions options) {
+        this.window = new PublishWindow(options.window());
+        this.bufferOffline = options.bufferOffline();
+    }
+
+    /** Hands one publication to the client; the completion must call {@link #done}. */
+    protected abstract void send(String topic, byte[] payload, int qos) throws Exception;
+
+    /** True when {@code e} says the client is not connected. */
+    protected abstract boolean isNotConnected(Exception e);
+
+    protected abstract void connectClient() throws Exception;
+
+    /** The completion callback: releases the window slot. */
+    protected final void done(boolean success) {
+        (success ? completed : failed).incrementAndGet();
+        window.release();
+    }
+
+    @Override
+    public void publish(String topic, byte[] payload, int qos) throws InterruptedException {
+        if (!window.acquire(STALL_TIMEOUT.toMillis())) {
+            throw new IllegalStateException("no publication completed within " + STALL_TIMEOUT.toSeconds()
+                    + " s: " + window.inFlight() + " in flight");
+        }
+        synchronized (held) {
+            if (bufferOffline && (!isConnected() || !held.isEmpty())) {
+                held.add(new Held(topic, payload, qos));
+                return;
+            }
+        }
+        try {
+            send(topic, payload, qos);
+        } catch (Exception e) {
+            if (bufferOffline && isNotConnected(e)) {
+                synchronized (held) {
+                    held.add(new Held(topic, payload, qos));
+                }
+                return;
+            }
+            window.release();
+            throw new IllegalStateException("publish to " + topic + " refused: " + e, e);
+        }
+    }
+
+    @Override
+    public void reconnect() {
+        try {
+            connectClient();
+        } catch (Exception e) {
+            throw new IllegalStateException("publisher cannot reconnect: " + e, e);
+        }
+        synchronized (held) {
+            while (!held.isEmpty()) {
+                Held h = held.peek();
+                try {
+                    send(h.topic(), h.payload(), h.qos());
+                    held.poll();
+                } catch (Exception e) {
+                    throw new IllegalStateException("held publication to " + h.topic() + " refused: " + e, e);
+                }
+            }
+        }
+    }
+
+    @Override
+    public int inFlight() {
+        return window.inFlight();
+    }
+
+    @Override
+    public long completed() {
+        return completed.get();
+    }
+
+    @Override
+    public long failed() {
+        return failed.get();
+    }
+
+    @Override
+    public boolean awaitIdle(Duration timeout) throws InterruptedException {
+        return window.awaitEmpty(timeout.toMillis());
+    }
+}
