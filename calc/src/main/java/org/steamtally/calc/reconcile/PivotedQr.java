@@ -7,7 +7,7 @@ package org.steamtally.calc.reconcile;
  *
  * <p>At step k the remaining column of largest norm is brought forward (norms recomputed, not
  * down-dated, since the matrices have a few dozen columns); the factorisation stops when that norm
- * falls to {@code relativeTolerance} times the largest column norm of A, and the step count is the
+ * falls to {@code relativeTolerance} times the largest column norm of A (or of a reference), and the step count is the
  * numerical rank. Q is kept as its reflectors I − β v vᵀ.
  */
 final class PivotedQr {
@@ -29,6 +29,15 @@ final class PivotedQr {
      *                          column norm of A ends the factorisation
      */
     PivotedQr(double[][] a, int rows, int cols, double relativeTolerance) {
+        this(a, rows, cols, relativeTolerance, 0.0);
+    }
+
+    /**
+     * As {@link #PivotedQr(double[][], int, int, double)}, with the tolerance taken relative to the
+     * larger of A's largest column norm and {@code referenceNorm}: for a matrix that is a projection
+     * of another, whose entries may be nothing but rounding, the norm of the original is the scale.
+     */
+    PivotedQr(double[][] a, int rows, int cols, double relativeTolerance, double referenceNorm) {
         this.rows = rows;
         this.cols = cols;
         r = new double[rows][cols];
@@ -46,6 +55,7 @@ final class PivotedQr {
         for (int j = 0; j < cols; j++) {
             largest = Math.max(largest, columnNorm2(j, 0));
         }
+        largest = Math.max(largest, referenceNorm * referenceNorm);
         double threshold = relativeTolerance * relativeTolerance * largest;
         for (int k = 0; k < steps; k++) {
             int best = -1;

@@ -925,6 +925,15 @@ public final class Reconciler {
                     bHat[i][u] = jac[i][s.unknown[u]] * colScale[u];
                 }
             }
+            // Q is orthogonal, so the balances of G = Q₂ᵀ Â are of the order of the longest row of Â at most.
+            double rowScale = 0.0;
+            for (int i = 0; i < nc; i++) {
+                double n2 = 0.0;
+                for (int a = 0; a < nm; a++) {
+                    n2 += aHat[i][a] * aHat[i][a];
+                }
+                rowScale = Math.max(rowScale, Math.sqrt(n2));
+            }
             PivotedQr qb = new PivotedQr(bHat, nc, nu, RANK_TOLERANCE);
             int rb = qb.rank;
             double[][] qa = new double[nc][];
@@ -946,7 +955,7 @@ public final class Reconciler {
             int red = 0;
             PivotedQr qg = null;
             if (nr > 0 && nm > 0) {
-                qg = new PivotedQr(gt, nm, nr, RANK_TOLERANCE);
+                qg = new PivotedQr(gt, nm, nr, RANK_TOLERANCE, rowScale);
                 red = qg.rank;
                 double[] w = new double[nm];
                 for (int k = 0; k < red; k++) {
