@@ -481,7 +481,7 @@ public final class Reconciler {
                     ids.add(inputId(q));
                     suspect[q] = true;
                 }
-                suspects.add(new Suspect(step, inputId(candidate), ids, current.test[candidate], bias, sigmaBias,
+                suspects.add(new Suspect(step, inputId(candidate), inputUnit(candidate), ids, current.test[candidate], bias, sigmaBias,
                         confirmed));
                 named.add(candidate);
                 current = next;
