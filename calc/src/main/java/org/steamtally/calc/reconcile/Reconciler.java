@@ -35,8 +35,8 @@ import org.steamtally.calc.plant.UnitDescription;
  * <h2>The problem</h2>
  * Minimise the quality criterion Σ (v_i / u_i)² = vᵀ S_x⁻¹ v (S_x diagonal: the sensors' and the
  * declared constants' uncertainties, taken as uncorrelated) subject to f(x + v, y) = 0, where f
- * holds, for every component, its mass balance (a closed feedwater heater has two, tubes and shell)
- * and, where it is known, its energy balance:
+ * holds, for every component, its mass balance (a closed feedwater heater has two, tubes and shell),
+ * for every check-flow meter m_state = m_meter, and, where it is known, its energy balance:
  * <ul>
  *   <li>adiabatic balances of open and closed feedwater heaters and mixers, Σ m_in h_in − Σ m_out h_out = 0;</li>
  *   <li>the steam side of a component against its independent measurement: turbine sections on a
@@ -135,6 +135,7 @@ public final class Reconciler {
     private static final int ROW_COOLING_WATER = 3;
     private static final int ROW_MOTOR = 4;
     private static final int ROW_FUEL = 5;
+    private static final int ROW_METER = 6;
 
     private final String unitId;
     private final Sensor[] sensors;
@@ -264,6 +265,15 @@ public final class Reconciler {
                     || c instanceof Component.Mixer) {
                 addRow(kinds, states, signs, inputs, pressures, labels, ROW_ADIABATIC,
                         ports(stateIndex, c.inlets(), c.outlets()), new int[0], 0.0, "energy balance of " + c.id());
+            }
+        }
+        for (StateDefinition s : flowing) {
+            if (s.checkFlowSensor().isPresent()) {
+                // m_state − m_meter = 0: a second meter on a stream, checked by the balances
+                addRow(kinds, states, signs, inputs, pressures, labels, ROW_METER,
+                        new Object[] {new int[] {stateIndex.get(s.id())}, new double[] {1.0}},
+                        new int[] {sensor(sensorIndex, s.checkFlowSensor().get(), Quantity.MASS_FLOW)}, 0.0,
+                        "check flow " + s.checkFlowSensor().get() + " on " + s.id());
             }
         }
         for (Component c : unit.components()) {
@@ -792,11 +802,16 @@ public final class Reconciler {
             double sum = 0.0;
             int[] js = rowStates[r];
             double[] sg = rowSigns[r];
-            if (rowKind[r] == ROW_MASS) {
+            if (rowKind[r] == ROW_MASS || rowKind[r] == ROW_METER) {
                 for (int k = 0; k < js.length; k++) {
                     int j = js[k];
                     sum += sg[k] * s.value[s.flowVar[j]];
                     d[s.flowVar[j]] += sg[k];
+                }
+                if (rowKind[r] == ROW_METER) {
+                    int q = rowInputs[r][0];
+                    sum -= s.value[q];
+                    d[q] -= 1.0;
                 }
                 f[row++] = sum;
                 continue;
@@ -936,19 +951,25 @@ public final class Reconciler {
             }
             PivotedQr qb = new PivotedQr(bHat, nc, nu, RANK_TOLERANCE);
             int rb = qb.rank;
-            double[][] qa = new double[nc][];
-            for (int i = 0; i < nc; i++) {
-                qa[i] = aHat[i].clone();
-            }
-            qb.applyQtColumns(qa, nm);
             double[] qr = r.clone();
             qb.applyQt(qr);
             int nr = nc - rb;
-            // Gᵀ: one column per remaining balance
+            // Gᵀ = Âᵀ Q₂, one column per remaining balance, from the columns of Q₂ (Q applied to unit
+            // vectors): far fewer operations than Qᵀ Â in full, which only the last step needs.
             double[][] gt = new double[nm][nr];
-            for (int a = 0; a < nm; a++) {
-                for (int k = 0; k < nr; k++) {
-                    gt[a][k] = qa[rb + k][a];
+            double[] q2 = new double[nc];
+            for (int k = 0; k < nr; k++) {
+                Arrays.fill(q2, 0.0);
+                q2[rb + k] = 1.0;
+                qb.applyQ(q2);
+                for (int i = 0; i < nc; i++) {
+                    double qi = q2[i];
+                    if (qi != 0.0) {
+                        double[] row = aHat[i];
+                        for (int a = 0; a < nm; a++) {
+                            gt[a][k] += qi * row[a];
+                        }
+                    }
                 }
             }
             double[] ev = new double[nm];
@@ -966,14 +987,19 @@ public final class Reconciler {
                 qg.applyQ(w);
                 ev = w;
             }
-            // Δy of the rows that fix the unknowns: R11 u = −(Q₁ᵀ r + Q₁ᵀ Â e)
-            double[] t = new double[Math.max(rb, 1)];
-            for (int k = 0; k < rb; k++) {
-                double v = qr[k];
+            // Δy of the rows that fix the unknowns: R11 u = −Q₁ᵀ (r + Â e)
+            double[] t = new double[Math.max(nc, 1)];
+            for (int i = 0; i < nc; i++) {
+                double v = r[i];
+                double[] row = aHat[i];
                 for (int a = 0; a < nm; a++) {
-                    v += qa[k][a] * ev[a];
+                    v += row[a] * ev[a];
                 }
-                t[k] = -v;
+                t[i] = v;
+            }
+            qb.applyQt(t);
+            for (int k = 0; k < rb; k++) {
+                t[k] = -t[k];
             }
             if (rb > 0) {
                 qb.solveUpper(t);
@@ -995,6 +1021,15 @@ public final class Reconciler {
                 s.converged = true;
                 s.redundancy = red;
                 statistics(s, ev, qg, red, nm);
+                double[][] qa = new double[nm][];
+                for (int a = 0; a < nm; a++) {
+                    double[] col = new double[nc];
+                    for (int i = 0; i < nc; i++) {
+                        col[i] = aHat[i][a];
+                    }
+                    qb.applyQt(col);
+                    qa[a] = col;
+                }
                 unknownStatistics(s, qb, qa, colScale, nm, nu);
                 double chi2 = 0.0;
                 for (int a = 0; a < nm; a++) {
@@ -1043,6 +1078,8 @@ public final class Reconciler {
     /**
      * Observability of each unknown from the null space of B, and u(ŷ) of the observable ones from
      * ŷ − y = −K (x̂ − x) with K = R₁₁⁻¹ Q₁ᵀ Â and cov(x̂) = S^{1/2} (I − P) S^{1/2}.
+     *
+     * @param qa Qᵀ Â by columns: {@code qa[a]} is Qᵀ times column a of Â
      */
     private void unknownStatistics(Solution s, PivotedQr qb, double[][] qa, double[] colScale, int nm, int nu) {
         int rb = qb.rank;
@@ -1051,7 +1088,7 @@ public final class Reconciler {
         double[][] kRows = new double[rb][nm];
         for (int a = 0; a < nm; a++) {
             for (int i = 0; i < rb; i++) {
-                k[i] = qa[i][a];
+                k[i] = qa[a][i];
             }
             qb.solveUpper(k);
             for (int i = 0; i < rb; i++) {

@@ -36,7 +36,7 @@ class BadSnapshotReconciliationTest {
         ReconciledSensor p = ReconcilerLinearTest.byId(r).get("JT-001");
         assertAll(
                 () -> assertEquals(ReconciliationResult.PASSED, r.status()),
-                () -> assertEquals(3, r.redundancy()),
+                () -> assertEquals(4, r.redundancy()),
                 () -> assertEquals("excluded", p.redundancy()),
                 () -> assertTrue(p.measured().isEmpty()),
                 () -> assertTrue(p.reconciled().isEmpty()));
@@ -50,7 +50,7 @@ class BadSnapshotReconciliationTest {
         ReconciledQuantity h = q.get("condensate_pumped.h_J_per_kg");
         assertAll(
                 () -> assertEquals(ReconciliationResult.PASSED, r.status()),
-                () -> assertEquals(3, r.redundancy()),
+                () -> assertEquals(4, r.redundancy()),
                 () -> assertTrue(h.observable()),
                 () -> assertTrue(h.sigmaReconciled().getAsDouble() > 0.0),
                 // the pressure of that state now enters no balance
@@ -63,7 +63,7 @@ class BadSnapshotReconciliationTest {
                 .result();
         assertAll(
                 () -> assertEquals("excluded", ReconcilerLinearTest.byId(r).get("FT-501").redundancy()),
-                () -> assertEquals(3, r.redundancy()));
+                () -> assertEquals(4, r.redundancy()));
     }
 
     @Test

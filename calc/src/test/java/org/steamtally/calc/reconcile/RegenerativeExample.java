@@ -117,7 +117,8 @@ final class RegenerativeExample {
                 pt("feed_pump_discharge", "PT-411", "TT-411", null),
                 new StateDefinition("feed_pump_discharge_ideal",
                         new StateFix.Isentropic("deaerator_outlet", "feed_pump_discharge"), Optional.empty()),
-                pt("feedwater", "PT-421", "TT-421", null),
+                new StateDefinition("feedwater", new StateFix.MeasuredPressureTemperature("PT-421", "TT-421"),
+                        Optional.empty(), Optional.of("FT-421")),
                 new StateDefinition("hp_drain", new StateFix.SaturatedLiquid("PT-431"), Optional.empty()));
 
         List<Component> components = List.of(
