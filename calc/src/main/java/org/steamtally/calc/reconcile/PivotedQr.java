@@ -135,25 +135,6 @@ final class PivotedQr {
         }
     }
 
-    /** M ← Qᵀ M for the first {@code width} columns of a {@code rows}-row matrix. */
-    void applyQtColumns(double[][] m, int width) {
-        for (int k = 0; k < rank; k++) {
-            double[] v = reflector[k];
-            for (int c = 0; c < width; c++) {
-                double s = 0.0;
-                for (int i = k; i < rows; i++) {
-                    s += v[i] * m[i][c];
-                }
-                s *= beta[k];
-                if (s != 0.0) {
-                    for (int i = k; i < rows; i++) {
-                        m[i][c] -= s * v[i];
-                    }
-                }
-            }
-        }
-    }
-
     private void reflect(int k, double[] b) {
         double[] v = reflector[k];
         double s = 0.0;

@@ -693,7 +693,7 @@ public final class Reconciler {
         Enthalpy e = new Enthalpy();
         for (int j = 0; j < stateCount; j++) {
             s.value[inputCount + j] = flowGuess;
-            if (!hasEnthalpyFunction(s, j)) {
+            if (!hasEnthalpyFunction(s, j) || !hasIf97State(e, j, measuredValues)) {
                 int z = inputCount + stateCount + j;
                 s.role[z] = UNKNOWN;
                 s.value[z] = enthalpyGuess(e, j, measuredValues);
@@ -753,6 +753,24 @@ public final class Reconciler {
             case H_PX -> s.role[pSensor[j]] != UNUSED;
             default -> false;
         };
+    }
+
+    /**
+     * Whether the measured values give the state an IF97 enthalpy; one that does not (a value
+     * outside the formulation, though within the sensor's plausible range) makes it unmeasured, like
+     * a stale sensor, instead of stopping the reconciliation.
+     */
+    private boolean hasIf97State(Enthalpy e, int j, double[] values) {
+        try {
+            if (hMode[j] == H_PT) {
+                e.pt(values[pSensor[j]], values[tSensor[j]]);
+            } else {
+                e.px(values[pSensor[j]], quality[j]);
+            }
+            return Double.isFinite(e.h) && Double.isFinite(e.dhdp) && Double.isFinite(e.dhdT);
+        } catch (IllegalArgumentException | IllegalStateException ex) {
+            return false;
+        }
     }
 
     /** A start for an unknown enthalpy: from the raw values where they exist, else a wet state at x = 0.9. */
@@ -912,12 +930,16 @@ public final class Reconciler {
         }
         double lastStep = Double.POSITIVE_INFINITY;
         double residual = Double.POSITIVE_INFINITY;
+        int worst = 0;
         for (int it = 1; it <= MAX_ITERATIONS; it++) {
             s.iterations = it;
             evaluate(s, f, jac, e, h, dhdp, dhdT);
             residual = 0.0;
             for (int i = 0; i < nc; i++) {
-                residual = Math.max(residual, Math.abs(f[i]));
+                if (Math.abs(f[i]) > residual) {
+                    residual = Math.abs(f[i]);
+                    worst = i;
+                }
             }
             for (int u = 0; u < nu; u++) {
                 double n2 = 0.0;
@@ -1046,8 +1068,19 @@ public final class Reconciler {
         }
         s.converged = false;
         s.status = ReconciliationResult.NOT_CONVERGED;
-        s.reason = "no convergence in " + MAX_ITERATIONS + " linearisations: largest balance residual " + residual
-                + " (kg/s or MW), last step " + lastStep + " standard uncertainties";
+        s.reason = "no convergence in " + MAX_ITERATIONS + " linearisations: largest residual " + residual
+                + " (kg/s, or MW for an energy balance) in the " + activeLabel(s, worst) + ", last step " + lastStep
+                + " standard uncertainties";
+    }
+
+    private String activeLabel(Solution s, int active) {
+        int seen = 0;
+        for (int r = 0; r < rowCount; r++) {
+            if (s.activeRow[r] && seen++ == active) {
+                return rowLabel[r];
+            }
+        }
+        return "balances";
     }
 
     private void statistics(Solution s, double[] ev, PivotedQr qg, int red, int nm) {
@@ -1140,10 +1173,5 @@ public final class Reconciler {
             }
             s.observableUnknown[qb.perm[i]] = !coupled;
         }
-    }
-
-    /** Labels of the balances, for messages and tests. */
-    List<String> balanceLabels() {
-        return List.of(rowLabel);
     }
 }

@@ -127,6 +127,21 @@ class ReconcilerLinearTest {
     }
 
     @Test
+    void stateWithoutAnIf97StateLosesItsEnthalpyAndTheFlowsAreStillReconciled() {
+        SmallUnit u = network(true);
+        double[] v = u.values();
+        // p_ms = 0 Pa is within the sensor's plausible range here but outside IF97
+        v[0] = 0.0;
+        ReconciliationResult r = Reconciler.compile(u.unit())
+                .reconcile(org.steamtally.calc.cycle.Snapshot.allGood(u.snapshot().timestamp(), "u", v)).result();
+        assertAll(
+                () -> assertEquals(ReconciliationResult.PASSED, r.status()),
+                () -> assertEquals(2, r.redundancy()),
+                () -> assertFalse(unmeasured(r).get("ms.h_J_per_kg").observable()),
+                () -> assertEquals("just_determined", byId(r).get("p_ms").redundancy()));
+    }
+
+    @Test
     void pressuresAndTemperaturesInNoBalanceAreJustDetermined() {
         SmallUnit u = network(true);
         Map<String, ReconciledSensor> s = byId(Reconciler.compile(u.unit()).reconcile(u.snapshot()).result());
