@@ -26,9 +26,11 @@ import org.steamtally.calc.plant.UncertainConstant;
 import org.steamtally.calc.plant.UnitDescription;
 
 /**
- * Data reconciliation of one unit after VDI 2048 Part 1 (VDI 2048 Blatt 1:2017, "Control and
- * quality improvement of process data and their uncertainties by means of correction calculation
- * for operation and acceptance tests"): the measured values x are adjusted by v, within their
+ * Data reconciliation of one unit after VDI 2048 Part 1 (VDI 2048 Blatt 1, "Uncertainties of
+ * measurement during acceptance tests on energy-conversion and power plants — Fundamentals",
+ * Verein Deutscher Ingenieure, October 2000; the quality criterion, the global and individual tests
+ * and the correction by weighted least squares under the balances as constraints are its method;
+ * a later revision of the guideline, recalled from memory, keeps them): the measured values x are adjusted by v, within their
  * standard uncertainties u, so that every mass and energy balance of the unit holds exactly, and the
  * unmeasured quantities y are solved at the same time.
  *
