@@ -30,9 +30,9 @@ import org.steamtally.calc.plant.UnitDescription;
  * measurement during acceptance tests on energy-conversion and power plants — Fundamentals",
  * Verein Deutscher Ingenieure, October 2000; the quality criterion, the global and individual tests
  * and the correction by weighted least squares under the balances as constraints are its method;
- * a later revision of the guideline, recalled from memory, keeps them): the measured values x are adjusted by v, within their
- * standard uncertainties u, so that every mass and energy balance of the unit holds exactly, and the
- * unmeasured quantities y are solved at the same time.
+ * a later revision of the guideline, recalled from memory, keeps them): the measured values x are
+ * adjusted by v, within their standard uncertainties u, so that every mass and energy balance of
+ * the unit holds exactly, and the unmeasured quantities y are solved at the same time.
  *
  * <h2>The problem</h2>
  * Minimise the quality criterion Σ (v_i / u_i)² = vᵀ S_x⁻¹ v (S_x diagonal: the sensors' and the
