@@ -9,9 +9,16 @@ import java.util.Objects;
  * and the store. Its JSON form uses snake_case names with the unit in the name; every field is
  * documented in docs/RESULTS.md.
  *
- * @param timestamp the snapshot's instant ({@code ts}, ISO-8601 UTC)
- * @param site      the site id
- * @param unit      the unit id
+ * @param timestamp      the snapshot's instant ({@code ts}, ISO-8601 UTC)
+ * @param site           the site id
+ * @param unit           the unit id
+ * @param states         states, from the values named by {@code metricsBasis}
+ * @param components     components, from the values named by {@code metricsBasis}
+ * @param cycle          the cycle's figures, from the values named by {@code metricsBasis}
+ * @param closure        first-law checks, always from the values as measured: they check the measurements
+ * @param reconciliation the reconciliation of the snapshot and its tests
+ * @param metricsBasis   which values {@code states}, {@code components} and {@code cycle} come from
+ * @param cycleRaw       the cycle's figures from the values as measured, kept beside {@code cycle}
  */
 public record UnitResult(
         Instant timestamp,
@@ -20,7 +27,10 @@ public record UnitResult(
         List<StateResult> states,
         List<ComponentResult> components,
         CycleResult cycle,
-        List<ClosureResult> closure) {
+        List<ClosureResult> closure,
+        ReconciliationResult reconciliation,
+        MetricsBasis metricsBasis,
+        CycleResult cycleRaw) {
 
     public UnitResult {
         Objects.requireNonNull(timestamp, "timestamp");
@@ -30,5 +40,15 @@ public record UnitResult(
         components = List.copyOf(components);
         Objects.requireNonNull(cycle, "cycle");
         closure = List.copyOf(closure);
+        Objects.requireNonNull(reconciliation, "reconciliation");
+        Objects.requireNonNull(metricsBasis, "metricsBasis");
+        Objects.requireNonNull(cycleRaw, "cycleRaw");
+    }
+
+    /** A record without reconciliation: every figure from the values as measured. */
+    public UnitResult(Instant timestamp, String site, String unit, List<StateResult> states,
+                      List<ComponentResult> components, CycleResult cycle, List<ClosureResult> closure) {
+        this(timestamp, site, unit, states, components, cycle, closure, ReconciliationResult.notRun(),
+                MetricsBasis.RAW, cycle);
     }
 }

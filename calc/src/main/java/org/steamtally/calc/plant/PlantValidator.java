@@ -274,6 +274,17 @@ public final class PlantValidator {
                         checkSensor(sensorId, Quantity.MASS_FLOW, path + ".flow", "the flow" + of, state.id());
                     }
                 }
+                if (state.checkFlowSensor().isPresent()) {
+                    String sensorId = state.checkFlowSensor().get();
+                    if (state.isReference()) {
+                        add(path + ".check_flow", Kind.REFERENCE, "state \"" + state.id()
+                                + "\" is an isentropic reference, which carries no flow, but names check-flow sensor \""
+                                + sensorId + "\"", state.id(), sensorId);
+                    } else {
+                        checkSensor(sensorId, Quantity.MASS_FLOW, path + ".check_flow", "the check flow" + of,
+                                state.id());
+                    }
+                }
             }
         }
 

@@ -15,12 +15,20 @@ import java.util.OptionalDouble;
 import org.steamtally.calc.cycle.ClosureResult;
 import org.steamtally.calc.cycle.ComponentResult;
 import org.steamtally.calc.cycle.Phase;
+import org.steamtally.calc.cycle.ReconciledQuantity;
+import org.steamtally.calc.cycle.ReconciledSensor;
+import org.steamtally.calc.cycle.ReconciliationResult;
 import org.steamtally.calc.cycle.StateResult;
+import org.steamtally.calc.cycle.Suspect;
 import org.steamtally.calc.cycle.UnitResult;
 
 /**
  * Writes result records of one unit as flat CSV (RFC 4180, {@code \n} line ends), one row per
- * snapshot: {@code ts, site, unit}, the {@code cycle.*} fields, then for each state
+ * snapshot: {@code ts, site, unit}, the {@code cycle.*} fields, {@code metrics_basis}, the
+ * {@code cycle_raw.*} fields, the {@code reconciliation.*} summary, for each reconciled sensor
+ * {@code reconciliation.sensor.<id>.<field>}, for each unmeasured quantity
+ * {@code reconciliation.unmeasured.<id>.<field>}, {@code suspects} (the named suspects' ids in rank
+ * order, space-separated), then for each state
  * {@code state.<id>.<field>}, for each component {@code component.<id>.<field>} and for each closure
  * {@code closure.<id>.<field>}, with the field names of the JSON form ({@link ResultFields}). A
  * component's {@code type} is left out: it is fixed by the plant description.
@@ -30,6 +38,11 @@ import org.steamtally.calc.cycle.UnitResult;
  * the header lacks. Empty values are empty cells; numbers are shortest round-trip decimals.
  */
 public final class ResultCsvWriter implements Closeable, Flushable {
+
+    private static final List<String> RECONCILIATION_COLUMNS = List.of(ResultFields.STATUS, ResultFields.PASSED,
+            ResultFields.CHI2, ResultFields.CHI2_LIMIT, ResultFields.REDUNDANCY, ResultFields.ITERATIONS);
+    private static final List<String> SENSOR_COLUMNS = List.of("measured", "reconciled", "sigma_reconciled",
+            "test_value", ResultFields.REDUNDANCY, ResultFields.SUSPECT);
 
     /** Selects jackson-core's Schubfach writer instead of {@code Double.toString}. */
     private static final boolean SHORTEST_DOUBLES = true;
@@ -49,6 +62,25 @@ public final class ResultCsvWriter implements Closeable, Flushable {
         for (String f : ResultFields.CYCLE_NUMBERS) {
             names.add(ResultFields.CYCLE + "." + f);
         }
+        names.add(ResultFields.METRICS_BASIS);
+        for (String f : ResultFields.CYCLE_NUMBERS) {
+            names.add(ResultFields.CYCLE_RAW + "." + f);
+        }
+        for (String f : RECONCILIATION_COLUMNS) {
+            names.add(ResultFields.RECONCILIATION + "." + f);
+        }
+        for (ReconciledSensor s : result.reconciliation().sensors()) {
+            String prefix = ResultFields.RECONCILIATION + ".sensor." + s.id() + ".";
+            for (String f : SENSOR_COLUMNS) {
+                names.add(prefix + f);
+            }
+        }
+        for (ReconciledQuantity q : result.reconciliation().unmeasured()) {
+            for (String f : ResultFields.UNMEASURED_NUMBERS) {
+                names.add(ResultFields.RECONCILIATION + ".unmeasured." + q.id() + "." + f);
+            }
+        }
+        names.add(ResultFields.SUSPECTS);
         for (StateResult s : result.states()) {
             String prefix = "state." + s.id() + ".";
             for (String f : ResultFields.STATE_NUMBERS) {
@@ -103,6 +135,37 @@ public final class ResultCsvWriter implements Closeable, Flushable {
         put(cells, ResultFields.UNIT, result.unit());
         putNumbers(cells, ResultFields.CYCLE + ".", "cycle", ResultFields.CYCLE_NUMBERS,
                 ResultJson.cycleNumbers(result.cycle()));
+        put(cells, ResultFields.METRICS_BASIS, result.metricsBasis().label());
+        putNumbers(cells, ResultFields.CYCLE_RAW + ".", "cycle_raw", ResultFields.CYCLE_NUMBERS,
+                ResultJson.cycleNumbers(result.cycleRaw()));
+        ReconciliationResult r = result.reconciliation();
+        String rp = ResultFields.RECONCILIATION + ".";
+        put(cells, rp + ResultFields.STATUS, r.status());
+        put(cells, rp + ResultFields.PASSED, Boolean.toString(r.passed()));
+        put(cells, rp + ResultFields.CHI2, number(r.chi2()));
+        putNumber(cells, rp, "reconciliation", ResultFields.CHI2_LIMIT, r.chi2Limit());
+        put(cells, rp + ResultFields.REDUNDANCY, Integer.toString(r.redundancy()));
+        put(cells, rp + ResultFields.ITERATIONS, Integer.toString(r.iterations()));
+        for (ReconciledSensor s : r.sensors()) {
+            String prefix = rp + "sensor." + s.id() + ".";
+            String where = "reconciled sensor " + s.id();
+            putNumber(cells, prefix, where, "measured", s.measured());
+            putNumber(cells, prefix, where, "reconciled", s.reconciled());
+            putNumber(cells, prefix, where, "sigma_reconciled", s.sigmaReconciled());
+            putNumber(cells, prefix, where, "test_value", s.testValue());
+            put(cells, prefix + ResultFields.REDUNDANCY, s.redundancy());
+            put(cells, prefix + ResultFields.SUSPECT, Boolean.toString(s.suspect()));
+        }
+        for (ReconciledQuantity q : r.unmeasured()) {
+            String prefix = rp + "unmeasured." + q.id() + ".";
+            putNumber(cells, prefix, "unmeasured " + q.id(), "reconciled", q.reconciled());
+            putNumber(cells, prefix, "unmeasured " + q.id(), "sigma_reconciled", q.sigmaReconciled());
+        }
+        StringBuilder named = new StringBuilder();
+        for (Suspect s : r.suspects()) {
+            named.append(named.length() == 0 ? "" : " ").append(s.id());
+        }
+        put(cells, ResultFields.SUSPECTS, named.toString());
         for (StateResult s : result.states()) {
             String prefix = "state." + s.id() + ".";
             putNumbers(cells, prefix, "state " + s.id(), ResultFields.STATE_NUMBERS, ResultJson.stateNumbers(s));

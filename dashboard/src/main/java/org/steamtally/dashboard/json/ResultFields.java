@@ -16,6 +16,12 @@ public final class ResultFields {
     public static final String COMPONENTS = "components";
     public static final String CYCLE = "cycle";
     public static final String CLOSURE = "closure";
+    /** After {@code closure}: which values {@code states}, {@code components} and {@code cycle} come from. */
+    public static final String METRICS_BASIS = "metrics_basis";
+    /** After {@code metrics_basis}: the cycle's figures from the values as measured, fields as {@code cycle}. */
+    public static final String CYCLE_RAW = "cycle_raw";
+    public static final String RECONCILIATION = "reconciliation";
+    public static final String SUSPECTS = "suspects";
 
     public static final String ID = "id";
     public static final String TYPE = "type";
@@ -45,6 +51,36 @@ public final class ResultFields {
 
     /** Numeric fields of each entry of {@code closure}. */
     public static final List<String> CLOSURE_NUMBERS = List.of("residual_W", "sigma_W", "z");
+
+    /** Fields of the {@code reconciliation} object, in order; the last two are arrays. */
+    public static final String STATUS = "status";
+    public static final String PASSED = "passed";
+    public static final String CHI2 = "chi2";
+    public static final String CHI2_LIMIT = "chi2_limit";
+    public static final String REDUNDANCY = "redundancy";
+    public static final String CONFIDENCE = "confidence";
+    public static final String TEST_LIMIT = "test_limit";
+    public static final String ITERATIONS = "iterations";
+    public static final String SENSORS = "sensors";
+    public static final String UNMEASURED = "unmeasured";
+
+    /** Fields of each entry of {@code reconciliation.sensors}, in order. */
+    public static final String KIND = "kind";
+    public static final String UNIT_NAME = "unit";
+    public static final List<String> SENSOR_NUMBERS = List.of(
+            "measured", "sigma_measured", "reconciled", "sigma_reconciled", "test_value");
+    public static final String SUSPECT = "suspect";
+
+    /** Fields of each entry of {@code reconciliation.unmeasured}: id, unit, these, observable. */
+    public static final List<String> UNMEASURED_NUMBERS = List.of("reconciled", "sigma_reconciled");
+    public static final String OBSERVABLE = "observable";
+
+    /** Fields of each entry of {@code suspects}, in order. */
+    public static final String RANK = "rank";
+    public static final String EQUIVALENCE_SET = "equivalence_set";
+    public static final String TEST_VALUE = "test_value";
+    public static final List<String> SUSPECT_NUMBERS = List.of("bias", "sigma_bias");
+    public static final String CONFIRMED = "confirmed";
 
     private ResultFields() {
     }

@@ -25,8 +25,13 @@ import java.util.OptionalDouble;
 import org.steamtally.calc.cycle.ClosureResult;
 import org.steamtally.calc.cycle.ComponentResult;
 import org.steamtally.calc.cycle.CycleResult;
+import org.steamtally.calc.cycle.MetricsBasis;
 import org.steamtally.calc.cycle.Phase;
+import org.steamtally.calc.cycle.ReconciledQuantity;
+import org.steamtally.calc.cycle.ReconciledSensor;
+import org.steamtally.calc.cycle.ReconciliationResult;
 import org.steamtally.calc.cycle.StateResult;
+import org.steamtally.calc.cycle.Suspect;
 import org.steamtally.calc.cycle.UnitResult;
 
 /**
@@ -124,13 +129,80 @@ public final class ResultJson {
                 g.writeEndObject();
             }
             g.writeEndArray();
+
+            g.writeStringField(ResultFields.METRICS_BASIS, result.metricsBasis().label());
+            g.writeObjectFieldStart(ResultFields.CYCLE_RAW);
+            writeNumbers(g, "cycle_raw", ResultFields.CYCLE_NUMBERS, cycleNumbers(result.cycleRaw()));
+            g.writeEndObject();
+            writeReconciliation(g, result.reconciliation());
             g.writeEndObject();
         }
     }
 
+    private static void writeReconciliation(JsonGenerator g, ReconciliationResult r) throws IOException {
+        g.writeObjectFieldStart(ResultFields.RECONCILIATION);
+        g.writeStringField(ResultFields.STATUS, r.status());
+        g.writeBooleanField(ResultFields.PASSED, r.passed());
+        g.writeNumberField(ResultFields.CHI2, r.chi2());
+        writeNumber(g, "reconciliation", ResultFields.CHI2_LIMIT, r.chi2Limit());
+        g.writeNumberField(ResultFields.REDUNDANCY, r.redundancy());
+        g.writeNumberField(ResultFields.CONFIDENCE, r.confidence());
+        g.writeNumberField(ResultFields.TEST_LIMIT, r.testLimit());
+        g.writeNumberField(ResultFields.ITERATIONS, r.iterations());
+        writeText(g, ResultFields.REASON, r.reason());
+        g.writeArrayFieldStart(ResultFields.SENSORS);
+        for (ReconciledSensor s : r.sensors()) {
+            g.writeStartObject();
+            g.writeStringField(ResultFields.ID, s.id());
+            g.writeStringField(ResultFields.KIND, s.kind());
+            g.writeStringField(ResultFields.UNIT_NAME, s.unit());
+            writeNumbers(g, "reconciled sensor " + s.id(), ResultFields.SENSOR_NUMBERS, sensorNumbers(s));
+            g.writeStringField(ResultFields.REDUNDANCY, s.redundancy());
+            g.writeBooleanField(ResultFields.SUSPECT, s.suspect());
+            g.writeEndObject();
+        }
+        g.writeEndArray();
+        g.writeArrayFieldStart(ResultFields.UNMEASURED);
+        for (ReconciledQuantity q : r.unmeasured()) {
+            g.writeStartObject();
+            g.writeStringField(ResultFields.ID, q.id());
+            g.writeStringField(ResultFields.UNIT_NAME, q.unit());
+            writeNumbers(g, "unmeasured " + q.id(), ResultFields.UNMEASURED_NUMBERS,
+                    new OptionalDouble[] {q.reconciled(), q.sigmaReconciled()});
+            g.writeBooleanField(ResultFields.OBSERVABLE, q.observable());
+            g.writeEndObject();
+        }
+        g.writeEndArray();
+        g.writeEndObject();
+        g.writeArrayFieldStart(ResultFields.SUSPECTS);
+        for (Suspect s : r.suspects()) {
+            g.writeStartObject();
+            g.writeNumberField(ResultFields.RANK, s.rank());
+            g.writeStringField(ResultFields.ID, s.id());
+            g.writeStringField(ResultFields.UNIT_NAME, s.unit());
+            g.writeArrayFieldStart(ResultFields.EQUIVALENCE_SET);
+            for (String id : s.equivalenceSet()) {
+                g.writeString(id);
+            }
+            g.writeEndArray();
+            g.writeNumberField(ResultFields.TEST_VALUE, s.testValue());
+            writeNumbers(g, "suspect " + s.id(), ResultFields.SUSPECT_NUMBERS,
+                    new OptionalDouble[] {s.bias(), s.sigmaBias()});
+            g.writeBooleanField(ResultFields.CONFIRMED, s.confirmed());
+            g.writeEndObject();
+        }
+        g.writeEndArray();
+    }
+
+    static OptionalDouble[] sensorNumbers(ReconciledSensor s) {
+        return new OptionalDouble[] {s.measured(), s.sigmaMeasured(), s.reconciled(), s.sigmaReconciled(), s.testValue()};
+    }
+
     /**
      * Reads one record from its JSON form. Every field must be present; {@code null} stands for an
-     * empty value. Fields not in the format are ignored, so that a newer writer can add fields.
+     * empty value. Fields not in the format are ignored, so that a newer writer can add fields. A
+     * record without {@code reconciliation} (written before reconciliation existed) reads as one
+     * with reconciliation {@code not_run} and metrics basis {@code raw}.
      *
      * @throws ResultFormatException if the text is not a result record
      */
@@ -191,7 +263,104 @@ public final class ResultJson {
             closure.add(construct(where, () -> new ClosureResult(id, n[0].getAsDouble(), n[1].getAsDouble(),
                     n[2].getAsDouble())));
         }
-        return new UnitResult(ts, site, unit, states, components, cycle, closure);
+        if (root.get(ResultFields.RECONCILIATION) == null) {
+            // A record from before reconciliation: every figure from the values as measured.
+            return new UnitResult(ts, site, unit, states, components, cycle, closure);
+        }
+        MetricsBasis basis = metricsBasis(text(root, ResultFields.METRICS_BASIS, "record"));
+        JsonNode rawNode = field(root, ResultFields.CYCLE_RAW, "record");
+        if (!rawNode.isObject()) {
+            throw new ResultFormatException("record: cycle_raw must be an object");
+        }
+        OptionalDouble[] w = numbers(rawNode, ResultFields.CYCLE_NUMBERS, "cycle_raw");
+        CycleResult cycleRaw = new CycleResult(w[0], w[1], w[2], w[3], w[4], w[5], w[6], w[7], w[8], w[9]);
+        ReconciliationResult reconciliation = reconciliation(root);
+        return construct("record", () -> new UnitResult(ts, site, unit, states, components, cycle, closure,
+                reconciliation, basis, cycleRaw));
+    }
+
+    private static ReconciliationResult reconciliation(JsonNode root) {
+        JsonNode r = field(root, ResultFields.RECONCILIATION, "record");
+        if (!r.isObject()) {
+            throw new ResultFormatException("record: reconciliation must be an object");
+        }
+        String where = "reconciliation";
+        String status = text(r, ResultFields.STATUS, where);
+        double chi2 = requiredNumber(r, ResultFields.CHI2, where);
+        OptionalDouble limit = number(r, ResultFields.CHI2_LIMIT, where);
+        int redundancy = integer(r, ResultFields.REDUNDANCY, where);
+        double confidence = requiredNumber(r, ResultFields.CONFIDENCE, where);
+        double testLimit = requiredNumber(r, ResultFields.TEST_LIMIT, where);
+        int iterations = integer(r, ResultFields.ITERATIONS, where);
+        Optional<String> reason = optionalText(r, ResultFields.REASON, where);
+        List<ReconciledSensor> sensors = new ArrayList<>();
+        for (JsonNode s : array(r, ResultFields.SENSORS)) {
+            String id = text(s, ResultFields.ID, "reconciled sensor");
+            String w = "reconciled sensor " + id;
+            OptionalDouble[] n = numbers(s, ResultFields.SENSOR_NUMBERS, w);
+            sensors.add(construct(w, () -> new ReconciledSensor(id, text(s, ResultFields.KIND, w),
+                    text(s, ResultFields.UNIT_NAME, w), n[0], n[1], n[2], n[3], n[4],
+                    text(s, ResultFields.REDUNDANCY, w), bool(s, ResultFields.SUSPECT, w))));
+        }
+        List<ReconciledQuantity> unmeasured = new ArrayList<>();
+        for (JsonNode q : array(r, ResultFields.UNMEASURED)) {
+            String id = text(q, ResultFields.ID, "unmeasured");
+            String w = "unmeasured " + id;
+            OptionalDouble[] n = numbers(q, ResultFields.UNMEASURED_NUMBERS, w);
+            unmeasured.add(construct(w, () -> new ReconciledQuantity(id, text(q, ResultFields.UNIT_NAME, w), n[0], n[1],
+                    bool(q, ResultFields.OBSERVABLE, w))));
+        }
+        List<Suspect> suspects = new ArrayList<>();
+        for (JsonNode s : array(root, ResultFields.SUSPECTS)) {
+            String id = text(s, ResultFields.ID, "suspect");
+            String w = "suspect " + id;
+            JsonNode set = field(s, ResultFields.EQUIVALENCE_SET, w);
+            if (!set.isArray()) {
+                throw new ResultFormatException(w + ": equivalence_set must be an array of ids");
+            }
+            List<String> ids = new ArrayList<>();
+            for (JsonNode e : set) {
+                if (!e.isTextual()) {
+                    throw new ResultFormatException(w + ": equivalence_set must be an array of ids");
+                }
+                ids.add(e.textValue());
+            }
+            OptionalDouble[] n = numbers(s, ResultFields.SUSPECT_NUMBERS, w);
+            suspects.add(construct(w, () -> new Suspect(integer(s, ResultFields.RANK, w), id,
+                    text(s, ResultFields.UNIT_NAME, w), ids, requiredNumber(s, ResultFields.TEST_VALUE, w), n[0], n[1],
+                    bool(s, ResultFields.CONFIRMED, w))));
+        }
+        if (bool(r, ResultFields.PASSED, where) != ReconciliationResult.PASSED.equals(status)) {
+            throw new ResultFormatException(where + ": passed must be true exactly when status is passed");
+        }
+        return construct(where, () -> new ReconciliationResult(status, chi2, limit, redundancy, confidence, testLimit,
+                iterations, reason, sensors, unmeasured, suspects));
+    }
+
+    private static MetricsBasis metricsBasis(String label) {
+        for (MetricsBasis b : MetricsBasis.values()) {
+            if (b.label().equals(label)) {
+                return b;
+            }
+        }
+        throw new ResultFormatException("record: metrics_basis '" + label + "' is not one of reconciled, raw, "
+                + "raw_excluding_suspects");
+    }
+
+    private static double requiredNumber(JsonNode node, String name, String where) {
+        OptionalDouble v = number(node, name, where);
+        if (v.isEmpty()) {
+            throw new ResultFormatException(where + ": " + name + " must be a number");
+        }
+        return v.getAsDouble();
+    }
+
+    private static int integer(JsonNode node, String name, String where) {
+        JsonNode value = field(node, name, where);
+        if (!value.isIntegralNumber() || !value.canConvertToInt()) {
+            throw new ResultFormatException(where + ": " + name + " must be an integer");
+        }
+        return value.intValue();
     }
 
     /** {@code ts} as written: UTC, cut (not rounded) to whole milliseconds. */

@@ -7,8 +7,13 @@ import java.util.OptionalDouble;
 import org.steamtally.calc.cycle.ClosureResult;
 import org.steamtally.calc.cycle.ComponentResult;
 import org.steamtally.calc.cycle.CycleResult;
+import org.steamtally.calc.cycle.MetricsBasis;
 import org.steamtally.calc.cycle.Phase;
+import org.steamtally.calc.cycle.ReconciledQuantity;
+import org.steamtally.calc.cycle.ReconciledSensor;
+import org.steamtally.calc.cycle.ReconciliationResult;
 import org.steamtally.calc.cycle.StateResult;
+import org.steamtally.calc.cycle.Suspect;
 import org.steamtally.calc.cycle.UnitResult;
 
 /**
@@ -55,9 +60,39 @@ final class ResultFixture {
         ClosureResult closure = new ClosureResult("cycle", 2.1e6, 3.4e6, 2.1e6 / 3.4e6);
         ClosureResult generator = new ClosureResult("turbine+generator", -0.9e6, 1.5e6, -0.9e6 / 1.5e6);
 
+        CycleResult cycleRaw = new CycleResult(of(HEAT_ADDED_W), of(HEAT_REJECTED_W), of(TURBINE_WORK_W),
+                of(PUMP_WORK_W), of(NET_WORK_W), of(THERMAL_EFFICIENCY), of(PUMP_WORK_W / TURBINE_WORK_W),
+                of(3600.0 / THERMAL_EFFICIENCY), of(1.0 - 314.66 / 808.15), none());
+
         return new UnitResult(Instant.parse("2026-12-01T06:30:00.250Z"), "northfield", "unit2",
                 List.of(mainSteam, exhaust, condensate, feedwater), List.of(boiler, turbine, condenser, pump), cycle,
-                List.of(closure, generator));
+                List.of(closure, generator), reconciliation(), MetricsBasis.RAW_EXCLUDING_SUSPECTS, cycleRaw);
+    }
+
+    /**
+     * A failed global test whose one suspect, FT-101, cannot be told apart from JT-001. χ² limit
+     * 7.815 for three degrees of freedom at 95 % (NIST/SEMATECH e-Handbook 1.3.6.7.4); the other
+     * figures are made up.
+     */
+    static ReconciliationResult reconciliation() {
+        List<ReconciledSensor> sensors = List.of(
+                new ReconciledSensor("PT-101", "sensor", "Pa", of(14.2e6), of(0.05e6), of(14.2e6), of(0.05e6), none(),
+                        "just_determined", false),
+                new ReconciledSensor("TT-101", "sensor", "K", of(808.15), of(0.75), of(808.4), of(0.6), of(0.55),
+                        "redundant", false),
+                new ReconciledSensor("FT-101", "sensor", "kg/s", of(97.4), of(0.5), of(95.3), of(0.35), of(3.2),
+                        "redundant", true),
+                new ReconciledSensor("JT-001", "sensor", "W", of(1.1e8), of(0.15e6), of(1.1032e8), of(0.12e6), of(3.2),
+                        "redundant", true),
+                new ReconciledSensor("generator.efficiency", "constant", "1", of(0.985), of(0.002), of(0.9861), of(0.0019),
+                        of(0.61), "redundant", false));
+        List<ReconciledQuantity> unmeasured = List.of(
+                new ReconciledQuantity("exhaust.h_J_per_kg", "J/kg", of(2.2903e6), of(9100.0), true),
+                new ReconciledQuantity("condensate.m_kg_per_s", "kg/s", of(95.3), of(0.35), true));
+        List<Suspect> suspects = List.of(new Suspect(1, "FT-101", "kg/s", List.of("FT-101", "JT-001"), 3.2, of(2.1),
+                of(0.61), true));
+        return new ReconciliationResult("failed", 12.3, of(7.815), 3, 0.95, 1.959963984540054, 4, Optional.empty(),
+                sensors, unmeasured, suspects);
     }
 
     /** A record of the same unit in which nothing could be computed. */

@@ -19,6 +19,7 @@ import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.ValueSource;
 import org.steamtally.calc.cycle.ComponentResult;
 import org.steamtally.calc.cycle.CycleResult;
+import org.steamtally.calc.cycle.MetricsBasis;
 import org.steamtally.calc.cycle.UnitResult;
 
 class ResultJsonTest {
@@ -55,6 +56,36 @@ class ResultJsonTest {
                 () -> assertTrue(json.contains("\"closure\":[]"), json),
                 () -> assertFalse(json.contains("NaN"), json),
                 () -> assertEquals(empty, ResultJson.read(json)));
+    }
+
+    @Test
+    void reconciliationAndSuspectsAreWrittenAfterTheClosureAndReadBack() {
+        String json = ResultJson.write(ResultFixture.unit2());
+        assertAll(
+                () -> assertTrue(json.contains("\"metrics_basis\":\"raw_excluding_suspects\",\"cycle_raw\":{"), json),
+                () -> assertTrue(json.contains("\"reconciliation\":{\"status\":\"failed\",\"passed\":false,"
+                        + "\"chi2\":12.3,\"chi2_limit\":7.815,\"redundancy\":3"), json),
+                () -> assertTrue(json.contains("\"suspects\":[{\"rank\":1,\"id\":\"FT-101\",\"unit\":\"kg/s\","
+                        + "\"equivalence_set\":[\"FT-101\",\"JT-001\"]"), json),
+                () -> assertTrue(json.indexOf("\"reconciliation\"") > json.indexOf("\"closure\"")),
+                () -> assertEquals(ResultFixture.reconciliation(), ResultJson.read(json).reconciliation()));
+    }
+
+    @Test
+    void recordWithoutReconciliationReadsAsNotReconciledWithRawMetrics() {
+        String json = ResultJson.write(ResultFixture.unit2());
+        String old = json.substring(0, json.indexOf(",\"metrics_basis\"")) + "}";
+        UnitResult read = ResultJson.read(old);
+        assertAll(
+                () -> assertEquals("not_run", read.reconciliation().status()),
+                () -> assertEquals(MetricsBasis.RAW, read.metricsBasis()),
+                () -> assertEquals(read.cycle(), read.cycleRaw()));
+    }
+
+    @Test
+    void passedThatContradictsTheStatusIsAFormatFault() {
+        String json = ResultJson.write(ResultFixture.unit2()).replace("\"passed\":false", "\"passed\":true");
+        assertThrows(ResultFormatException.class, () -> ResultJson.read(json));
     }
 
     @Test

@@ -794,7 +794,7 @@ public final class PlantDescriptionLoader {
         }
 
         private StateDefinition readState(Node node, String path, UnitIndex index) {
-            Map<String, Node> entries = mapping(node, path, peekId(node, "state"), Set.of("id", "fixed_by", "flow"));
+            Map<String, Node> entries = mapping(node, path, peekId(node, "state"), Set.of("id", "fixed_by", "flow", "check_flow"));
             if (entries == null) {
                 return null;
             }
@@ -806,6 +806,10 @@ public final class PlantDescriptionLoader {
             if (entries.containsKey("flow") && flow.isEmpty()) {
                 fix = null;
             }
+            Optional<String> checkFlow = optionalText(entries, "check_flow", what);
+            if (entries.containsKey("check_flow") && checkFlow.isEmpty()) {
+                fix = null;
+            }
             if (id == null || fix == null) {
                 if (id != null) {
                     index.broken.add(id);
@@ -813,7 +817,7 @@ public final class PlantDescriptionLoader {
                 return null;
             }
             StateFix f = fix;
-            return construct(node, () -> new StateDefinition(id, f, flow));
+            return construct(node, () -> new StateDefinition(id, f, flow, checkFlow));
         }
 
         private StateFix readFix(Node node, String path, String state) {

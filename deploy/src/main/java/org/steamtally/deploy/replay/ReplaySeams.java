@@ -1,7 +1,7 @@
 package org.steamtally.deploy.replay;
 
 import java.util.Objects;
-import org.steamtally.calc.cycle.CycleModel;
+import org.steamtally.calc.reconcile.ReconcilingEvaluator;
 import org.steamtally.collector.units.Units;
 import org.steamtally.deploy.config.PlantDescriptionLoader;
 
@@ -25,12 +25,12 @@ public record ReplaySeams(PlantSource plantSource, UnitConverter unitConverter, 
     /**
      * The plant-description loader of {@code deploy.config}, the unit table of
      * {@code collector.units} (gauge units with the site's atmospheric pressure) and the cycle model
-     * of {@code calc.cycle}.
+     * with the reconciliation of {@code calc.reconcile}, one full result record per snapshot.
      */
     public static ReplaySeams standard() {
         return new ReplaySeams(
                 PlantDescriptionLoader::load,
                 (quantity, unit, value, atmosphericPa) -> Units.parse(unit, quantity).toSi(value, atmosphericPa),
-                (siteId, unit) -> CycleModel.compile(siteId, unit)::evaluate);
+                (siteId, unit) -> ReconcilingEvaluator.compile(siteId, unit)::evaluate);
     }
 }

@@ -12,6 +12,7 @@ import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.steamtally.calc.cycle.ClosureResult;
+import org.steamtally.calc.cycle.MetricsBasis;
 import org.steamtally.calc.cycle.UnitResult;
 import org.steamtally.calc.steam.Steam;
 import org.steamtally.calc.steam.SteamState;
@@ -87,7 +88,11 @@ class SimpleExampleReplayTest {
                 () -> assertRelative(3600.0 / efficiency, result.cycle().heatRateKJPerKWh().getAsDouble(), tolerance,
                         "heat rate"),
                 () -> assertRelative(pumpWork / turbineWork, result.cycle().backWorkRatio().getAsDouble(), 1e-4,
-                        "back-work ratio"));
+                        "back-work ratio"),
+                // generator, fuel and motor check the balances; the cooling water fixes the exhaust
+                () -> assertEquals("passed", result.reconciliation().status(), result.reconciliation().toString()),
+                () -> assertEquals(3, result.reconciliation().redundancy()),
+                () -> assertEquals(MetricsBasis.RECONCILED, result.metricsBasis()));
         for (ClosureResult closure : result.closure()) {
             // A consistent recording closes every balance: |z| far below 1.
             assertTrue(Math.abs(closure.z()) < 0.01, closure.toString());

@@ -1,0 +1,68 @@
+package org.steamtally.calc.reconcile;
+
+import java.util.Objects;
+import org.steamtally.calc.cycle.CycleModel;
+import org.steamtally.calc.cycle.MetricsBasis;
+import org.steamtally.calc.cycle.Snapshot;
+import org.steamtally.calc.cycle.UnitResult;
+import org.steamtally.calc.plant.UnitDescription;
+
+/**
+ * One snapshot to one full result record: the cycle model on the raw values, the reconciliation
+ * and its tests, and the cycle model once more on the values the metrics should come from.
+ *
+ * <ul>
+ *   <li>Global test passed: states, components and cycle figures from the reconciled values
+ *       ({@code metrics_basis} {@code reconciled}).</li>
+ *   <li>Failed, and serial elimination confirmed its suspects, each determined by the other
+ *       sensors: from the raw values with each named suspect (the first of its equivalence set)
+ *       replaced by its estimate from the others ({@code raw_excluding_suspects}).</li>
+ *   <li>Otherwise (failed without such suspects, no redundancy, not converged): from the raw
+ *       values ({@code raw}).</li>
+ * </ul>
+ * The closure checks always come from the raw values, since they check the measurements; the raw
+ * cycle figures are kept beside the chosen ones as {@code cycle_raw}.
+ *
+ * <p>Not thread-safe, like the {@link CycleModel} it holds: one instance per thread.
+ */
+public final class ReconcilingEvaluator {
+
+    private final CycleModel model;
+    private final Reconciler reconciler;
+
+    private ReconcilingEvaluator(CycleModel model, Reconciler reconciler) {
+        this.model = Objects.requireNonNull(model, "model");
+        this.reconciler = Objects.requireNonNull(reconciler, "reconciler");
+    }
+
+    /**
+     * @throws org.steamtally.calc.cycle.CycleModelException when the cycle model rejects the unit
+     */
+    public static ReconcilingEvaluator compile(String siteId, UnitDescription unit) {
+        CycleModel model = CycleModel.compile(siteId, unit);
+        return new ReconcilingEvaluator(model, Reconciler.compile(unit));
+    }
+
+    /** The full result record of one snapshot; never throws for bad sensor values. */
+    public UnitResult evaluate(Snapshot snapshot) {
+        UnitResult raw = model.evaluate(snapshot);
+        Reconciliation reconciliation = reconciler.reconcile(snapshot);
+        MetricsBasis basis = MetricsBasis.RAW;
+        UnitResult chosen = raw;
+        double[] values = reconciliation.reconciledValues().orElse(null);
+        if (values != null) {
+            basis = MetricsBasis.RECONCILED;
+        } else {
+            values = reconciliation.excludingSuspectsValues().orElse(null);
+            if (values != null) {
+                basis = MetricsBasis.RAW_EXCLUDING_SUSPECTS;
+            }
+        }
+        if (values != null) {
+            chosen = model.evaluate(new Snapshot(snapshot.timestamp(), snapshot.unitId(), values,
+                    snapshot.status().clone()));
+        }
+        return new UnitResult(raw.timestamp(), raw.site(), raw.unit(), chosen.states(), chosen.components(),
+                chosen.cycle(), raw.closure(), reconciliation.result(), basis, raw.cycle());
+    }
+}
