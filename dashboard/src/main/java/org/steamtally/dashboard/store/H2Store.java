@@ -1,0 +1,418 @@
+package org.steamtally.dashboard.store;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.sql.Connection;
+import java.sql.DriverManager;
+import java.sql.PreparedStatement;
+import java.sql.ResultSet;
+import java.sql.SQLException;
+import java.sql.Statement;
+import java.sql.Types;
+import java.time.Clock;
+import java.time.Duration;
+import java.time.Instant;
+import java.util.ArrayList;
+import java.util.EnumMap;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Objects;
+import java.util.StringJoiner;
+import java.util.concurrent.Executors;
+import java.util.concurrent.ScheduledExecutorService;
+import java.util.concurrent.TimeUnit;
+import org.steamtally.dashboard.store.Measurement.Field;
+
+/**
+ * The embedded store: an H2 database in file mode under a data directory, one table per measurement
+ * with the same names as the InfluxDB schema (docs/STORE.md): columns {@code site, unit}, the id tag
+ * (except {@code cycle}), {@code ts} (BIGINT, ms since the epoch) and one nullable column per field.
+ * The primary key is (site, unit, id, ts), the point's identity, and writes are {@code MERGE}s, so
+ * writing a point again replaces it.
+ *
+ * <p>Points older than the retention period are deleted by {@link #purgeExpired()}, which runs at
+ * opening and then on a fixed schedule; "now" comes from the injected clock. H2 commits each write
+ * batch and its store survives a killed process (it reopens at its last committed state).
+ */
+public final class H2Store implements StoreBackend {
+
+    /** Adapter name in meters and logs. */
+    public static final String NAME = "h2";
+
+    private static final String DATABASE_FILE = "steamtally";
+
+    private final Connection writeConnection;
+    private final Connection queryConnection;
+    private final Clock clock;
+    private final Duration retention;
+    private final ScheduledExecutorService purger;
+    private final Map<Measurement, String> merges = new EnumMap<>(Measurement.class);
+
+    private H2Store(Connection write, Connection query, Clock clock, Duration retention) {
+        this.writeConnection = write;
+        this.queryConnection = query;
+        this.clock = clock;
+        this.retention = retention;
+        this.purger = Executors.newSingleThreadScheduledExecutor(r -> {
+            Thread t = new Thread(r, "steamtally-store-h2-purge");
+            t.setDaemon(true);
+            return t;
+        });
+    }
+
+    /**
+     * Opens (creating if needed) the database in {@code dataDir} and schedules the retention purge.
+     *
+     * @param retention     how long points are kept, &gt; 0
+     * @param purgeInterval how often expired points are deleted, &gt; 0
+     * @throws StoreQueryException when the database cannot be opened (e.g. another process holds it)
+     */
+    public static H2Store open(Path dataDir, Duration retention, Duration purgeInterval, Clock clock) {
+        Objects.requireNonNull(clock, "clock");
+        if (retention.isNegative() || retention.isZero() || purgeInterval.isNegative() || purgeInterval.isZero()) {
+            throw new IllegalArgumentException("retention " + retention + " and purge interval " + purgeInterval
+                    + " must be positive");
+        }
+        try {
+            Files.createDirectories(dataDir);
+            String url = "jdbc:h2:file:" + dataDir.toAbsolutePath().resolve(DATABASE_FILE);
+            Connection write = DriverManager.getConnection(url, "sa", "");
+            Connection query = DriverManager.getConnection(url, "sa", "");
+            H2Store store = new H2Store(write, query, clock, retention);
+            store.createSchema();
+            store.purgeExpired();
+            long ms = purgeInterval.toMillis();
+            store.purger.scheduleWithFixedDelay(store::purgeQuietly, ms, ms, TimeUnit.MILLISECONDS);
+            return store;
+        } catch (SQLException | java.io.IOException e) {
+            throw new StoreQueryException("cannot open the embedded store in " + dataDir + ": " + e.getMessage(), e);
+        }
+    }
+
+    @Override
+    public String name() {
+        return NAME;
+    }
+
+    private static String q(String identifier) {
+        return '"' + identifier + '"';
+    }
+
+    private static String sqlType(Measurement.FieldType t) {
+        return switch (t) {
+            case DOUBLE -> "DOUBLE PRECISION";
+            case LONG -> "BIGINT";
+            case BOOLEAN -> "BOOLEAN";
+            case STRING -> "VARCHAR";
+        };
+    }
+
+    private static List<String> keyColumns(Measurement m) {
+        List<String> k = new ArrayList<>(List.of(Measurement.SITE_TAG, Measurement.UNIT_TAG));
+        if (m.hasIdTag()) {
+            k.add(m.idTag());
+        }
+        k.add("ts");
+        return k;
+    }
+
+    private void createSchema() throws SQLException {
+        synchronized (writeConnection) {
+            try (Statement st = writeConnection.createStatement()) {
+                for (Measurement m : Measurement.values()) {
+                    StringJoiner cols = new StringJoiner(", ");
+                    List<String> key = keyColumns(m);
+                    for (String k : key) {
+                        cols.add(q(k) + (k.equals("ts") ? " BIGINT NOT NULL" : " VARCHAR NOT NULL"));
+                    }
+                    for (Field f : m.fields()) {
+                        cols.add(q(f.name()) + " " + sqlType(f.type()));
+                    }
+                    StringJoiner pk = new StringJoiner(", ");
+                    key.forEach(k -> pk.add(q(k)));
+                    st.execute("CREATE TABLE IF NOT EXISTS " + q(m.measurementName()) + " (" + cols + ", PRIMARY KEY ("
+                            + pk + "))");
+                    if (m.hasIdTag()) {
+                        // Unit-wide range queries (closure statistics, suspects, alarm history) across ids.
+                        st.execute("CREATE INDEX IF NOT EXISTS " + q(m.measurementName() + "_by_time") + " ON "
+                                + q(m.measurementName()) + " (" + q("site") + ", " + q("unit") + ", " + q("ts") + ")");
+                    }
+                    StringJoiner all = new StringJoiner(", ");
+                    StringJoiner marks = new StringJoiner(", ");
+                    for (String k : key) {
+                        all.add(q(k));
+                        marks.add("?");
+                    }
+                    for (Field f : m.fields()) {
+                        all.add(q(f.name()));
+                        marks.add("?");
+                    }
+                    merges.put(m, "MERGE INTO " + q(m.measurementName()) + " (" + all + ") KEY (" + pk + ") VALUES ("
+                            + marks + ")");
+                }
+            }
+        }
+    }
+
+    @Override
+    public void write(List<Point> points) throws StoreUnavailableException {
+        Map<Measurement, List<Point>> byMeasurement = new EnumMap<>(Measurement.class);
+        for (Point p : points) {
+            if (!p.isEmpty()) {
+                byMeasurement.computeIfAbsent(p.measurement(), k -> new ArrayList<>()).add(p);
+            }
+        }
+        synchronized (writeConnection) {
+            try {
+                writeConnection.setAutoCommit(false);
+                for (Map.Entry<Measurement, List<Point>> e : byMeasurement.entrySet()) {
+                    Measurement m = e.getKey();
+                    try (PreparedStatement ps = writeConnection.prepareStatement(merges.get(m))) {
+                        for (Point p : e.getValue()) {
+                            int i = 1;
+                            ps.setString(i++, p.site());
+                            ps.setString(i++, p.unit());
+                            if (m.hasIdTag()) {
+                                ps.setString(i++, p.id());
+                            }
+                            ps.setLong(i++, p.timestampMs());
+                            for (int f = 0; f < m.fields().size(); f++) {
+                                bind(ps, i++, m.fields().get(f).type(), p.value(f));
+                            }
+                            ps.addBatch();
+                        }
+                        ps.executeBatch();
+                    }
+                }
+                writeConnection.commit();
+            } catch (SQLException e) {
+                try {
+                    writeConnection.rollback();
+                } catch (SQLException suppressed) {
+                    e.addSuppressed(suppressed);
+                }
+                throw new StoreUnavailableException("embedded store write failed: " + e.getMessage(), e);
+            } finally {
+                try {
+                    writeConnection.setAutoCommit(true);
+                } catch (SQLException ignored) {
+                    // The next write sets it again.
+                }
+            }
+        }
+    }
+
+    private static void bind(PreparedStatement ps, int i, Measurement.FieldType type, Object v) throws SQLException {
+        if (v == null) {
+            ps.setNull(i, switch (type) {
+                case DOUBLE -> Types.DOUBLE;
+                case LONG -> Types.BIGINT;
+                case BOOLEAN -> Types.BOOLEAN;
+                case STRING -> Types.VARCHAR;
+            });
+            return;
+        }
+        switch (type) {
+            case DOUBLE -> ps.setDouble(i, (Double) v);
+            case LONG -> ps.setLong(i, (Long) v);
+            case BOOLEAN -> ps.setBoolean(i, (Boolean) v);
+            case STRING -> ps.setString(i, (String) v);
+        }
+    }
+
+    /**
+     * Deletes every point older than the retention period before the clock's now.
+     *
+     * @return the number of points deleted
+     */
+    public long purgeExpired() {
+        long cutoff = clock.instant().minus(retention).toEpochMilli();
+        long deleted = 0;
+        synchronized (writeConnection) {
+            try {
+                for (Measurement m : Measurement.values()) {
+                    try (PreparedStatement del = writeConnection.prepareStatement(
+                            "DELETE FROM " + q(m.measurementName()) + " WHERE " + q("ts") + " < ?")) {
+                        del.setLong(1, cutoff);
+                        deleted += del.executeUpdate();
+                    }
+                }
+            } catch (SQLException e) {
+                throw new StoreQueryException("embedded store purge failed: " + e.getMessage(), e);
+            }
+        }
+        return deleted;
+    }
+
+    private void purgeQuietly() {
+        try {
+            purgeExpired();
+        } catch (RuntimeException e) {
+            System.getLogger(H2Store.class.getName()).log(System.Logger.Level.ERROR, e.getMessage(), e);
+        }
+    }
+
+    private interface Rows<T> {
+        T read(ResultSet rs) throws SQLException;
+    }
+
+    private <T> T query(String sql, Rows<T> rows, Object... params) {
+        synchronized (queryConnection) {
+            try (PreparedStatement ps = queryConnection.prepareStatement(sql)) {
+                for (int i = 0; i < params.length; i++) {
+                    ps.setObject(i + 1, params[i]);
+                }
+                try (ResultSet rs = ps.executeQuery()) {
+                    return rows.read(rs);
+                }
+            } catch (SQLException e) {
+                throw new StoreQueryException("embedded store query failed: " + e.getMessage() + " [" + sql + "]", e);
+            }
+        }
+    }
+
+    private static String unitRange() {
+        return q("site") + " = ? AND " + q("unit") + " = ? AND " + q("ts") + " >= ? AND " + q("ts") + " < ?";
+    }
+
+    @Override
+    public List<Point> points(Measurement m, String site, String unit, Instant from, Instant to) {
+        String order = m.hasIdTag() ? q(m.idTag()) + ", " + q("ts") : q("ts");
+        return query("SELECT * FROM " + q(m.measurementName()) + " WHERE " + unitRange() + " ORDER BY " + order,
+                rs -> {
+                    List<Point> out = new ArrayList<>();
+                    while (rs.next()) {
+                        out.add(point(m, rs));
+                    }
+                    return out;
+                }, site, unit, from.toEpochMilli(), to.toEpochMilli());
+    }
+
+    private static Point point(Measurement m, ResultSet rs) throws SQLException {
+        Object[] values = new Object[m.fields().size()];
+        for (int f = 0; f < values.length; f++) {
+            Field field = m.fields().get(f);
+            String col = field.name();
+            values[f] = switch (field.type()) {
+                case DOUBLE -> nullable(rs, rs.getDouble(col));
+                case LONG -> nullable(rs, rs.getLong(col));
+                case BOOLEAN -> nullable(rs, rs.getBoolean(col));
+                case STRING -> rs.getString(col);
+            };
+        }
+        return new Point(m, rs.getString("site"), rs.getString("unit"), m.hasIdTag() ? rs.getString(m.idTag()) : null,
+                rs.getLong("ts"), values);
+    }
+
+    private static Object nullable(ResultSet rs, Object v) throws SQLException {
+        return rs.wasNull() ? null : v;
+    }
+
+    @Override
+    public Map<String, List<Bucket>> buckets(SeriesRef s, Instant from, Instant to, Duration width) {
+        long fromMs = from.toEpochMilli();
+        long widthMs = width.toMillis();
+        if (widthMs < 1) {
+            throw new IllegalArgumentException("bucket width " + width + " must be at least 1 ms");
+        }
+        // Whole numbers of our own making, so they are written into the text: H2 must see the same
+        // expression in SELECT and GROUP BY.
+        String bucket = "((" + q("ts") + " - " + fromMs + ") / " + widthMs + ")";
+        StringBuilder sql = new StringBuilder("SELECT ").append(bucket).append(" AS b");
+        for (String f : s.fields()) {
+            String v = "CAST(" + q(f) + " AS DOUBLE PRECISION)";
+            sql.append(", AVG(").append(v).append("), MIN(").append(v).append("), MAX(").append(v).append("), COUNT(")
+                    .append(q(f)).append(')');
+        }
+        sql.append(" FROM ").append(q(s.measurement().measurementName())).append(" WHERE ").append(unitRange());
+        List<Object> params = new ArrayList<>(List.of(s.site(), s.unit(), fromMs, to.toEpochMilli()));
+        if (s.measurement().hasIdTag()) {
+            sql.append(" AND ").append(q(s.measurement().idTag())).append(" = ?");
+            params.add(s.id());
+        }
+        sql.append(" GROUP BY ").append(bucket).append(" ORDER BY b");
+        return query(sql.toString(), rs -> {
+            Map<String, List<Bucket>> out = new LinkedHashMap<>();
+            s.fields().forEach(f -> out.put(f, new ArrayList<>()));
+            while (rs.next()) {
+                Instant start = Instant.ofEpochMilli(fromMs + rs.getLong(1) * widthMs);
+                for (int i = 0; i < s.fields().size(); i++) {
+                    long count = rs.getLong(5 + 4 * i);
+                    if (count > 0) {
+                        out.get(s.fields().get(i)).add(new Bucket(start, rs.getDouble(2 + 4 * i),
+                                rs.getDouble(3 + 4 * i), rs.getDouble(4 + 4 * i), count));
+                    }
+                }
+            }
+            return out;
+        }, params.toArray());
+    }
+
+    @Override
+    public List<ClosureStats> closureStats(String site, String unit, Instant from, Instant to) {
+        String z = q("z");
+        return query("SELECT " + q("closure") + ", COUNT(" + z + "), AVG(" + q("residual_W") + "), AVG(" + z + "), MIN("
+                + z + "), MAX(" + z + "), SUM(CASE WHEN ABS(" + z + ") > " + ClosureStats.Z_LIMIT
+                + " THEN 1 ELSE 0 END) FROM " + q("closure") + " WHERE " + unitRange() + " GROUP BY " + q("closure")
+                + " ORDER BY " + q("closure"), rs -> {
+                    List<ClosureStats> out = new ArrayList<>();
+                    while (rs.next()) {
+                        out.add(new ClosureStats(rs.getString(1), rs.getLong(2), rs.getDouble(3), rs.getDouble(4),
+                                rs.getDouble(5), rs.getDouble(6), rs.getLong(7)));
+                    }
+                    return out;
+                }, site, unit, from.toEpochMilli(), to.toEpochMilli());
+    }
+
+    @Override
+    public List<SuspectSensor> suspects(String site, String unit, Instant from, Instant to) {
+        return query("SELECT " + q("sensor") + ", COUNT(*), MAX(" + q("test_value") + ") FROM " + q("reconciliation")
+                + " WHERE " + unitRange() + " AND " + q("suspect") + " = TRUE GROUP BY " + q("sensor")
+                + " ORDER BY 2 DESC, 3 DESC, 1", rs -> {
+                    List<SuspectSensor> out = new ArrayList<>();
+                    while (rs.next()) {
+                        out.add(new SuspectSensor(rs.getString(1), rs.getLong(2), rs.getDouble(3)));
+                    }
+                    return out;
+                }, site, unit, from.toEpochMilli(), to.toEpochMilli());
+    }
+
+    @Override
+    public List<StoredAlarmEvent> alarmEvents(String site, String unit, Instant from, Instant to) {
+        return query("SELECT * FROM " + q("alarms") + " WHERE " + unitRange() + " ORDER BY " + q("ts") + ", "
+                + q("alarm"), this::alarms, site, unit, from.toEpochMilli(), to.toEpochMilli());
+    }
+
+    @Override
+    public List<StoredAlarmEvent> lastAlarmEventsBefore(String site, String unit, Instant t) {
+        return query("SELECT * FROM " + q("alarms") + " a WHERE a." + q("site") + " = ? AND a." + q("unit")
+                + " = ? AND a." + q("ts") + " = (SELECT MAX(b." + q("ts") + ") FROM " + q("alarms") + " b WHERE b."
+                + q("site") + " = a." + q("site") + " AND b." + q("unit") + " = a." + q("unit") + " AND b."
+                + q("alarm") + " = a." + q("alarm") + " AND b." + q("ts") + " < ?) ORDER BY a." + q("alarm"),
+                this::alarms, site, unit, t.toEpochMilli());
+    }
+
+    private List<StoredAlarmEvent> alarms(ResultSet rs) throws SQLException {
+        List<StoredAlarmEvent> out = new ArrayList<>();
+        while (rs.next()) {
+            out.add(ResultPoints.alarmEvent(point(Measurement.ALARMS, rs)));
+        }
+        return out;
+    }
+
+    @Override
+    public void close() {
+        purger.shutdownNow();
+        synchronized (writeConnection) {
+            synchronized (queryConnection) {
+                try {
+                    queryConnection.close();
+                    writeConnection.close();
+                } catch (SQLException e) {
+                    throw new StoreQueryException("closing the embedded store: " + e.getMessage(), e);
+                }
+            }
+        }
+    }
+}
