@@ -42,12 +42,25 @@ public final class H2Store implements StoreBackend {
 
     private static final String DATABASE_FILE = "steamtally";
 
+    /**
+     * Covering indexes for the queries behind shift summaries and alarm history: the cycle's energy
+     * and efficiency buckets, closure statistics, suspect sensors (only suspect rows, found by the
+     * leading {@code suspect} column) and alarm events by time.
+     */
+    private static final Map<Measurement, List<String>> SUMMARY_INDEX = Map.of(
+            Measurement.CYCLE, List.of("site", "unit", "ts", "heat_added_W", "net_work_W", "thermal_efficiency",
+                    "heat_rate_kJ_per_kWh"),
+            Measurement.CLOSURE, List.of("site", "unit", "ts", "closure", "z", "residual_W"),
+            Measurement.RECONCILIATION, List.of("site", "unit", "suspect", "ts", "sensor", "test_value"),
+            Measurement.ALARMS, List.of("site", "unit", "ts"));
+
     private final Connection writeConnection;
     private final Connection queryConnection;
     private final Clock clock;
     private final Duration retention;
     private final ScheduledExecutorService purger;
     private final Map<Measurement, String> merges = new EnumMap<>(Measurement.class);
+    private final Map<Measurement, String> inserts = new EnumMap<>(Measurement.class);
 
     private H2Store(Connection write, Connection query, Clock clock, Duration retention) {
         this.writeConnection = write;
@@ -133,10 +146,14 @@ public final class H2Store implements StoreBackend {
                     key.forEach(k -> pk.add(q(k)));
                     st.execute("CREATE TABLE IF NOT EXISTS " + q(m.measurementName()) + " (" + cols + ", PRIMARY KEY ("
                             + pk + "))");
-                    if (m.hasIdTag()) {
-                        // Unit-wide range queries (closure statistics, suspects, alarm history) across ids.
-                        st.execute("CREATE INDEX IF NOT EXISTS " + q(m.measurementName() + "_by_time") + " ON "
-                                + q(m.measurementName()) + " (" + q("site") + ", " + q("unit") + ", " + q("ts") + ")");
+                    List<String> covering = SUMMARY_INDEX.get(m);
+                    if (covering != null) {
+                        // Holds every column the unit-wide range queries read, so H2 answers them from
+                        // the index alone instead of fetching each row.
+                        StringJoiner ic = new StringJoiner(", ");
+                        covering.forEach(c -> ic.add(q(c)));
+                        st.execute("CREATE INDEX IF NOT EXISTS " + q(m.measurementName() + "_summary") + " ON "
+                                + q(m.measurementName()) + " (" + ic + ")");
                     }
                     StringJoiner all = new StringJoiner(", ");
                     StringJoiner marks = new StringJoiner(", ");
@@ -150,6 +167,7 @@ public final class H2Store implements StoreBackend {
                     }
                     merges.put(m, "MERGE INTO " + q(m.measurementName()) + " (" + all + ") KEY (" + pk + ") VALUES ("
                             + marks + ")");
+                    inserts.put(m, "INSERT INTO " + q(m.measurementName()) + " (" + all + ") VALUES (" + marks + ")");
                 }
             }
         }
@@ -165,40 +183,74 @@ public final class H2Store implements StoreBackend {
         }
         synchronized (writeConnection) {
             try {
-                writeConnection.setAutoCommit(false);
-                for (Map.Entry<Measurement, List<Point>> e : byMeasurement.entrySet()) {
-                    Measurement m = e.getKey();
-                    try (PreparedStatement ps = writeConnection.prepareStatement(merges.get(m))) {
-                        for (Point p : e.getValue()) {
-                            int i = 1;
-                            ps.setString(i++, p.site());
-                            ps.setString(i++, p.unit());
-                            if (m.hasIdTag()) {
-                                ps.setString(i++, p.id());
-                            }
-                            ps.setLong(i++, p.timestampMs());
-                            for (int f = 0; f < m.fields().size(); f++) {
-                                bind(ps, i++, m.fields().get(f).type(), p.value(f));
-                            }
-                            ps.addBatch();
-                        }
-                        ps.executeBatch();
+                writeBatch(byMeasurement, inserts);
+            } catch (SQLException e) {
+                if (!isDuplicateKey(e)) {
+                    throw new StoreUnavailableException("embedded store write failed: " + e.getMessage(), e);
+                }
+                // A point of the batch is there already (a replay after a crash): write the batch
+                // again as MERGEs, which replace. Plain INSERTs are faster when nothing is replayed.
+                try {
+                    writeBatch(byMeasurement, merges);
+                } catch (SQLException again) {
+                    throw new StoreUnavailableException("embedded store write failed: " + again.getMessage(), again);
+                }
+            }
+        }
+    }
+
+    /** H2's SQLState for a duplicate primary key (DUPLICATE_KEY_1, ErrorCode 23505). */
+    private static final String DUPLICATE_KEY = "23505";
+
+    private static boolean isDuplicateKey(SQLException e) {
+        for (Throwable t = e; t != null; t = t.getCause()) {
+            if (t instanceof SQLException s) {
+                for (SQLException n = s; n != null; n = n.getNextException()) {
+                    if (DUPLICATE_KEY.equals(n.getSQLState())) {
+                        return true;
                     }
                 }
-                writeConnection.commit();
-            } catch (SQLException e) {
-                try {
-                    writeConnection.rollback();
-                } catch (SQLException suppressed) {
-                    e.addSuppressed(suppressed);
+            }
+        }
+        return false;
+    }
+
+    private void writeBatch(Map<Measurement, List<Point>> byMeasurement, Map<Measurement, String> sql)
+            throws SQLException {
+        try {
+            writeConnection.setAutoCommit(false);
+            for (Map.Entry<Measurement, List<Point>> e : byMeasurement.entrySet()) {
+                Measurement m = e.getKey();
+                try (PreparedStatement ps = writeConnection.prepareStatement(sql.get(m))) {
+                    for (Point p : e.getValue()) {
+                        int i = 1;
+                        ps.setString(i++, p.site());
+                        ps.setString(i++, p.unit());
+                        if (m.hasIdTag()) {
+                            ps.setString(i++, p.id());
+                        }
+                        ps.setLong(i++, p.timestampMs());
+                        for (int f = 0; f < m.fields().size(); f++) {
+                            bind(ps, i++, m.fields().get(f).type(), p.value(f));
+                        }
+                        ps.addBatch();
+                    }
+                    ps.executeBatch();
                 }
-                throw new StoreUnavailableException("embedded store write failed: " + e.getMessage(), e);
-            } finally {
-                try {
-                    writeConnection.setAutoCommit(true);
-                } catch (SQLException ignored) {
-                    // The next write sets it again.
-                }
+            }
+            writeConnection.commit();
+        } catch (SQLException e) {
+            try {
+                writeConnection.rollback();
+            } catch (SQLException suppressed) {
+                e.addSuppressed(suppressed);
+            }
+            throw e;
+        } finally {
+            try {
+                writeConnection.setAutoCommit(true);
+            } catch (SQLException ignored) {
+                // The next write sets it again.
             }
         }
     }
