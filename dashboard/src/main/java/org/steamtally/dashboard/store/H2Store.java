@@ -361,6 +361,13 @@ public final class H2Store implements StoreBackend {
         return rs.wasNull() ? null : v;
     }
 
+    /*
+     * Buckets and closure statistics are aggregated here from the streamed rows rather than by SQL
+     * aggregates: H2 2.5 spends several times longer per row in AVG/MIN/MAX/SUM than in reading the
+     * (covering) index, which decided whether an 8-hour summary at 1 Hz fits its time budget
+     * (docs/PERFORMANCE.md).
+     */
+
     @Override
     public Map<String, List<Bucket>> buckets(SeriesRef s, Instant from, Instant to, Duration width) {
         long fromMs = from.toEpochMilli();
@@ -368,14 +375,10 @@ public final class H2Store implements StoreBackend {
         if (widthMs < 1) {
             throw new IllegalArgumentException("bucket width " + width + " must be at least 1 ms");
         }
-        // Whole numbers of our own making, so they are written into the text: H2 must see the same
-        // expression in SELECT and GROUP BY.
-        String bucket = "((" + q("ts") + " - " + fromMs + ") / " + widthMs + ")";
-        StringBuilder sql = new StringBuilder("SELECT ").append(bucket).append(" AS b");
+        int n = s.fields().size();
+        StringBuilder sql = new StringBuilder("SELECT ").append(q("ts"));
         for (String f : s.fields()) {
-            String v = "CAST(" + q(f) + " AS DOUBLE PRECISION)";
-            sql.append(", AVG(").append(v).append("), MIN(").append(v).append("), MAX(").append(v).append("), COUNT(")
-                    .append(q(f)).append(')');
+            sql.append(", ").append(q(f));
         }
         sql.append(" FROM ").append(q(s.measurement().measurementName())).append(" WHERE ").append(unitRange());
         List<Object> params = new ArrayList<>(List.of(s.site(), s.unit(), fromMs, to.toEpochMilli()));
@@ -383,17 +386,41 @@ public final class H2Store implements StoreBackend {
             sql.append(" AND ").append(q(s.measurement().idTag())).append(" = ?");
             params.add(s.id());
         }
-        sql.append(" GROUP BY ").append(bucket).append(" ORDER BY b");
         return query(sql.toString(), rs -> {
+            // Per bucket index: for each field count, sum, min, max.
+            java.util.TreeMap<Long, double[]> acc = new java.util.TreeMap<>();
+            while (rs.next()) {
+                long index = (rs.getLong(1) - fromMs) / widthMs;
+                double[] a = acc.get(index);
+                for (int i = 0; i < n; i++) {
+                    double v = rs.getDouble(2 + i);
+                    if (rs.wasNull()) {
+                        continue;
+                    }
+                    if (a == null) {
+                        a = new double[4 * n];
+                        for (int k = 0; k < n; k++) {
+                            a[4 * k + 2] = Double.POSITIVE_INFINITY;
+                            a[4 * k + 3] = Double.NEGATIVE_INFINITY;
+                        }
+                        acc.put(index, a);
+                    }
+                    a[4 * i] += 1;
+                    a[4 * i + 1] += v;
+                    a[4 * i + 2] = Math.min(a[4 * i + 2], v);
+                    a[4 * i + 3] = Math.max(a[4 * i + 3], v);
+                }
+            }
             Map<String, List<Bucket>> out = new LinkedHashMap<>();
             s.fields().forEach(f -> out.put(f, new ArrayList<>()));
-            while (rs.next()) {
-                Instant start = Instant.ofEpochMilli(fromMs + rs.getLong(1) * widthMs);
-                for (int i = 0; i < s.fields().size(); i++) {
-                    long count = rs.getLong(5 + 4 * i);
+            for (Map.Entry<Long, double[]> e : acc.entrySet()) {
+                Instant start = Instant.ofEpochMilli(fromMs + e.getKey() * widthMs);
+                double[] a = e.getValue();
+                for (int i = 0; i < n; i++) {
+                    long count = (long) a[4 * i];
                     if (count > 0) {
-                        out.get(s.fields().get(i)).add(new Bucket(start, rs.getDouble(2 + 4 * i),
-                                rs.getDouble(3 + 4 * i), rs.getDouble(4 + 4 * i), count));
+                        out.get(s.fields().get(i)).add(new Bucket(start, a[4 * i + 1] / count, a[4 * i + 2],
+                                a[4 * i + 3], count));
                     }
                 }
             }
@@ -403,15 +430,28 @@ public final class H2Store implements StoreBackend {
 
     @Override
     public List<ClosureStats> closureStats(String site, String unit, Instant from, Instant to) {
-        String z = q("z");
-        return query("SELECT " + q("closure") + ", COUNT(" + z + "), AVG(" + q("residual_W") + "), AVG(" + z + "), MIN("
-                + z + "), MAX(" + z + "), SUM(CASE WHEN ABS(" + z + ") > " + ClosureStats.Z_LIMIT
-                + " THEN 1 ELSE 0 END) FROM " + q("closure") + " WHERE " + unitRange() + " GROUP BY " + q("closure")
-                + " ORDER BY " + q("closure"), rs -> {
-                    List<ClosureStats> out = new ArrayList<>();
+        return query("SELECT " + q("closure") + ", " + q("z") + ", " + q("residual_W") + " FROM " + q("closure")
+                + " WHERE " + unitRange(), rs -> {
+                    // Per id: count, sum of residuals, sum of z, min z, max z, count outside.
+                    Map<String, double[]> acc = new java.util.TreeMap<>();
                     while (rs.next()) {
-                        out.add(new ClosureStats(rs.getString(1), rs.getLong(2), rs.getDouble(3), rs.getDouble(4),
-                                rs.getDouble(5), rs.getDouble(6), rs.getLong(7)));
+                        double[] a = acc.computeIfAbsent(rs.getString(1), k -> new double[] {
+                            0, 0, 0, Double.POSITIVE_INFINITY, Double.NEGATIVE_INFINITY, 0});
+                        double z = rs.getDouble(2);
+                        a[0] += 1;
+                        a[1] += rs.getDouble(3);
+                        a[2] += z;
+                        a[3] = Math.min(a[3], z);
+                        a[4] = Math.max(a[4], z);
+                        if (Math.abs(z) > ClosureStats.Z_LIMIT) {
+                            a[5] += 1;
+                        }
+                    }
+                    List<ClosureStats> out = new ArrayList<>(acc.size());
+                    for (Map.Entry<String, double[]> e : acc.entrySet()) {
+                        double[] a = e.getValue();
+                        out.add(new ClosureStats(e.getKey(), (long) a[0], a[1] / a[0], a[2] / a[0], a[3], a[4],
+                                (long) a[5]));
                     }
                     return out;
                 }, site, unit, from.toEpochMilli(), to.toEpochMilli());
