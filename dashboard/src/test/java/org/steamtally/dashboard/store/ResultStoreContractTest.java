@@ -56,7 +56,9 @@ abstract class ResultStoreContractTest {
 
     @AfterEach
     void close() {
-        store.close();
+        if (store != null) {
+            store.close();
+        }
         dropBackend();
     }
 
