@@ -73,6 +73,28 @@ class H2StoreContractTest extends ResultStoreContractTest {
     }
 
     @Test
+    void theRunningShiftIsSummarisedUpToTheClocksNow() throws Exception {
+        Instant start = Instant.parse("2026-11-30T05:00:00Z");
+        Shift shift = new Shift(java.time.LocalDate.of(2026, 11, 30), "early", start, start.plus(Duration.ofHours(8)));
+        Instant now = start.plus(Duration.ofMinutes(30));
+        try (SpooledStore running = SpooledStore.open(
+                H2Store.open(dir.resolve("running"), TEN_YEARS, Duration.ofHours(1), Clock.systemUTC()),
+                SpoolSettings.forNominalRate(dir.resolve("running-spool"), 100, 300),
+                new io.micrometer.core.instrument.simple.SimpleMeterRegistry(), StoreListener.NONE,
+                Clock.fixed(now, ZoneOffset.UTC))) {
+            for (int m = 0; m < 30; m++) {
+                running.writeResult(StoreFixtures.cycleOnly(start.plus(Duration.ofMinutes(m)), 3.0e8, 1.1e8));
+            }
+            org.junit.jupiter.api.Assertions.assertTrue(running.awaitDrained(DRAIN));
+            ShiftSummary s = running.shiftSummary(SITE, UNIT, shift);
+            assertEquals(now, s.until(), "summarised up to now, not to the shift's end");
+            assertEquals(Duration.ofMinutes(30), s.covered());
+            // 3.0e8 W for 30 min = 150 MWh.
+            assertEquals(150.0, s.energyInMWh(), 1e-9);
+        }
+    }
+
+    @Test
     void pointsSurviveClosingAndReopeningTheDatabase() throws Exception {
         store.writeResult(StoreFixtures.record(T0, 4));
         drain();
