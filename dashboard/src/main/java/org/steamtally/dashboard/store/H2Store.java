@@ -55,16 +55,19 @@ public final class H2Store implements StoreBackend {
             Measurement.ALARMS, List.of("site", "unit", "ts"));
 
     private final Connection writeConnection;
-    private final Connection queryConnection;
+    /** Connections for queries, so that two can run at once (a shift summary asks several). */
+    private final java.util.concurrent.BlockingQueue<Connection> queryConnections;
+    private final List<Connection> allQueryConnections;
     private final Clock clock;
     private final Duration retention;
     private final ScheduledExecutorService purger;
     private final Map<Measurement, String> merges = new EnumMap<>(Measurement.class);
     private final Map<Measurement, String> inserts = new EnumMap<>(Measurement.class);
 
-    private H2Store(Connection write, Connection query, Clock clock, Duration retention) {
+    private H2Store(Connection write, List<Connection> query, Clock clock, Duration retention) {
         this.writeConnection = write;
-        this.queryConnection = query;
+        this.allQueryConnections = List.copyOf(query);
+        this.queryConnections = new java.util.concurrent.ArrayBlockingQueue<>(query.size(), false, query);
         this.clock = clock;
         this.retention = retention;
         this.purger = Executors.newSingleThreadScheduledExecutor(r -> {
@@ -91,7 +94,8 @@ public final class H2Store implements StoreBackend {
             Files.createDirectories(dataDir);
             String url = "jdbc:h2:file:" + dataDir.toAbsolutePath().resolve(DATABASE_FILE);
             Connection write = DriverManager.getConnection(url, "sa", "");
-            Connection query = DriverManager.getConnection(url, "sa", "");
+            List<Connection> query = List.of(DriverManager.getConnection(url, "sa", ""),
+                    DriverManager.getConnection(url, "sa", ""));
             H2Store store = new H2Store(write, query, clock, retention);
             store.createSchema();
             store.purgeExpired();
@@ -310,17 +314,24 @@ public final class H2Store implements StoreBackend {
     }
 
     private <T> T query(String sql, Rows<T> rows, Object... params) {
-        synchronized (queryConnection) {
-            try (PreparedStatement ps = queryConnection.prepareStatement(sql)) {
-                for (int i = 0; i < params.length; i++) {
-                    ps.setObject(i + 1, params[i]);
-                }
-                try (ResultSet rs = ps.executeQuery()) {
-                    return rows.read(rs);
-                }
-            } catch (SQLException e) {
-                throw new StoreQueryException("embedded store query failed: " + e.getMessage() + " [" + sql + "]", e);
+        Connection c;
+        try {
+            c = queryConnections.take();
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            throw new StoreQueryException("interrupted while waiting for a connection to the embedded store", e);
+        }
+        try (PreparedStatement ps = c.prepareStatement(sql)) {
+            for (int i = 0; i < params.length; i++) {
+                ps.setObject(i + 1, params[i]);
             }
+            try (ResultSet rs = ps.executeQuery()) {
+                return rows.read(rs);
+            }
+        } catch (SQLException e) {
+            throw new StoreQueryException("embedded store query failed: " + e.getMessage() + " [" + sql + "]", e);
+        } finally {
+            queryConnections.add(c);
         }
     }
 
@@ -497,13 +508,13 @@ public final class H2Store implements StoreBackend {
     public void close() {
         purger.shutdownNow();
         synchronized (writeConnection) {
-            synchronized (queryConnection) {
-                try {
-                    queryConnection.close();
-                    writeConnection.close();
-                } catch (SQLException e) {
-                    throw new StoreQueryException("closing the embedded store: " + e.getMessage(), e);
+            try {
+                for (Connection c : allQueryConnections) {
+                    c.close();
                 }
+                writeConnection.close();
+            } catch (SQLException e) {
+                throw new StoreQueryException("closing the embedded store: " + e.getMessage(), e);
             }
         }
     }

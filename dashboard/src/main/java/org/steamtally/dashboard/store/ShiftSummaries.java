@@ -10,6 +10,9 @@ import java.util.List;
 import java.util.Map;
 import java.util.OptionalDouble;
 import java.util.Set;
+import java.util.concurrent.CompletableFuture;
+import java.util.concurrent.CompletionException;
+import java.util.concurrent.Executor;
 
 /**
  * Builds shift summaries from a backend's primitive queries, the same way for every adapter.
@@ -34,10 +37,17 @@ final class ShiftSummaries {
     private ShiftSummaries() {
     }
 
-    static ShiftSummary summarise(StoreBackend backend, Clock clock, String site, String unit, Shift shift) {
+    /**
+     * @param executor runs the closure statistics, the largest query, while the calling thread asks
+     *                 the others
+     */
+    static ShiftSummary summarise(StoreBackend backend, Clock clock, Executor executor, String site, String unit,
+            Shift shift) {
         Instant now = clock.instant();
         Instant until = shift.end().isAfter(now) ? (now.isAfter(shift.start()) ? now : shift.start()) : shift.end();
         Instant from = shift.start();
+        CompletableFuture<List<ClosureStats>> closures = CompletableFuture.supplyAsync(
+                () -> backend.closureStats(site, unit, from, until), executor);
         Map<String, List<Bucket>> b = backend.buckets(
                 SeriesRef.cycle(site, unit, HEAT_ADDED, NET_WORK, EFFICIENCY, HEAT_RATE), from, until, BUCKET);
         double energyIn = energyMWh(b.get(HEAT_ADDED), until);
@@ -53,10 +63,19 @@ final class ShiftSummaries {
             covered = covered.plus(clippedLength(s, until));
         }
         List<SuspectSensor> suspects = backend.suspects(site, unit, from, until);
+        Duration alarms = alarmsActive(backend, site, unit, from, until);
+        List<ClosureStats> closureStats;
+        try {
+            closureStats = closures.join();
+        } catch (CompletionException e) {
+            if (e.getCause() instanceof RuntimeException r) {
+                throw r;
+            }
+            throw e;
+        }
         return new ShiftSummary(site, unit, shift, until, energyIn, energyOut,
                 mean(b.get(EFFICIENCY)), min(b.get(EFFICIENCY)), mean(b.get(HEAT_RATE)), max(b.get(HEAT_RATE)),
-                covered, backend.closureStats(site, unit, from, until),
-                alarmsActive(backend, site, unit, from, until),
+                covered, closureStats, alarms,
                 suspects.subList(0, Math.min(ShiftSummary.TOP_SUSPECTS, suspects.size())));
     }
 

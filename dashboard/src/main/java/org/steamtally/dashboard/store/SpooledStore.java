@@ -59,6 +59,7 @@ public final class SpooledStore implements ResultStore {
     private final Counter rejectedCounter;
     private final Thread writer;
     private final ScheduledExecutorService syncer;
+    private final java.util.concurrent.ExecutorService queries;
 
     private final Object progress = new Object();
     private long submitted;
@@ -91,6 +92,11 @@ public final class SpooledStore implements ResultStore {
                 .description("points the store refused for good").register(registry);
         this.writer = new Thread(this::run, "steamtally-store-writer-" + store);
         this.writer.setDaemon(true);
+        this.queries = Executors.newSingleThreadExecutor(r -> {
+            Thread t = new Thread(r, "steamtally-store-query-" + store);
+            t.setDaemon(true);
+            return t;
+        });
         this.syncer = Executors.newSingleThreadScheduledExecutor(r -> {
             Thread t = new Thread(r, "steamtally-store-spool-sync-" + store);
             t.setDaemon(true);
@@ -391,7 +397,7 @@ public final class SpooledStore implements ResultStore {
 
     @Override
     public ShiftSummary shiftSummary(String site, String unit, Shift shift) {
-        return ShiftSummaries.summarise(backend, clock, site, unit, shift);
+        return ShiftSummaries.summarise(backend, clock, queries, site, unit, shift);
     }
 
     @Override
@@ -422,6 +428,7 @@ public final class SpooledStore implements ResultStore {
             handled(rest.size());
         }
         syncer.shutdownNow();
+        queries.shutdownNow();
         try {
             journal.close();
         } catch (IOException e) {
