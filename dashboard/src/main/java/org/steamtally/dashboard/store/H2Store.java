@@ -92,7 +92,9 @@ public final class H2Store implements StoreBackend {
         }
         try {
             Files.createDirectories(dataDir);
-            String url = "jdbc:h2:file:" + dataDir.toAbsolutePath().resolve(DATABASE_FILE);
+            // The store closes the database itself, after the writer has handed over its last batch;
+            // H2's own shutdown hook could close it first.
+            String url = "jdbc:h2:file:" + dataDir.toAbsolutePath().resolve(DATABASE_FILE) + ";DB_CLOSE_ON_EXIT=FALSE";
             Connection write = DriverManager.getConnection(url, "sa", "");
             List<Connection> query = List.of(DriverManager.getConnection(url, "sa", ""),
                     DriverManager.getConnection(url, "sa", ""));

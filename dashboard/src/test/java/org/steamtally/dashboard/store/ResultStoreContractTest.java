@@ -108,6 +108,19 @@ abstract class ResultStoreContractTest {
     }
 
     @Test
+    void tagValuesWithSpacesCommasEqualsSignsAndQuotesAreStoredAndFound() throws Exception {
+        String site = "fern holm, 'north'";
+        String unit = "unit=1 \\ a";
+        UnitResult r = StoreFixtures.record(site, unit, T0, 5);
+        store.writeResult(r);
+        drain();
+        assertEquals(of(ResultPoints.of(r), Measurement.COMPONENTS),
+                store.points(Measurement.COMPONENTS, site, unit, T0, T0.plusSeconds(1)));
+        assertEquals(1, store.series(SeriesRef.of(Measurement.COMPONENTS, site, unit, "feed pump, 2", "work_out_W"),
+                T0, T0.plusSeconds(1), Duration.ofSeconds(1)).get("work_out_W").size());
+    }
+
+    @Test
     void rangesIncludeTheirStartAndExcludeTheirEnd() throws Exception {
         for (int k = 0; k < 10; k++) {
             store.writeResult(StoreFixtures.record(T0.plusSeconds(k), k));
