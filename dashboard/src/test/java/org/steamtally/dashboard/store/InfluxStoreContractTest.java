@@ -97,6 +97,25 @@ class InfluxStoreContractTest extends ResultStoreContractTest {
         }
     }
 
+    @Test
+    void aNamedRetentionPolicyIsWrittenToAndReadFrom() throws Exception {
+        try (InfluxDB influx = InfluxDBFactory.connect(url)) {
+            influx.query(new Query("CREATE DATABASE \"" + database + "\"", null, true));
+            influx.query(new Query("CREATE RETENTION POLICY \"one_year\" ON \"" + database
+                    + "\" DURATION 52w REPLICATION 1", null, true));
+        }
+        InfluxSettings settings = new InfluxSettings(url, database, "one_year", "", "", false, Duration.ofSeconds(10));
+        // Points within the policy's duration: a year back from now at most.
+        java.time.Instant t = java.time.Instant.now().truncatedTo(java.time.temporal.ChronoUnit.MILLIS);
+        try (InfluxStore named = InfluxStore.connect(settings)) {
+            named.write(ResultPoints.of(StoreFixtures.record(t, 1)));
+            assertEquals(of(ResultPoints.of(StoreFixtures.record(t, 1)), Measurement.CYCLE),
+                    named.points(Measurement.CYCLE, SITE, UNIT, t, t.plusSeconds(1)));
+        }
+        assertEquals(List.of(), store.points(Measurement.CYCLE, SITE, UNIT, t, t.plusSeconds(1)),
+                "not in the default policy");
+    }
+
     private static void control(String ctl, String action) throws IOException, InterruptedException {
         Process p = new ProcessBuilder(ctl, action).redirectErrorStream(true).start();
         String out = new String(p.getInputStream().readAllBytes());
