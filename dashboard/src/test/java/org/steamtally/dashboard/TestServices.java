@@ -23,13 +23,13 @@ import org.testcontainers.utility.DockerImageName;
  * {@value #REQUIRE_SERVICES_VARIABLE} is {@code 1}. A configured URL that does not answer fails the
  * test rather than skipping it, since someone asked for that server.
  */
-final class TestServices {
+public final class TestServices {
 
   /** Environment variable with the URL of an InfluxDB 1.x server, e.g. {@code http://127.0.0.1:8086}. */
-  static final String INFLUX_URL_VARIABLE = "STEAMTALLY_TEST_INFLUX_URL";
+  public static final String INFLUX_URL_VARIABLE = "STEAMTALLY_TEST_INFLUX_URL";
 
   /** Environment variable that, set to {@code 1}, turns every missing service into a test failure. */
-  static final String REQUIRE_SERVICES_VARIABLE = "STEAMTALLY_REQUIRE_SERVICES";
+  public static final String REQUIRE_SERVICES_VARIABLE = "STEAMTALLY_REQUIRE_SERVICES";
 
   private static final String CONTAINER_IMAGE = "influxdb:1.8";
   private static final int INFLUX_HTTP_PORT = 8086;
@@ -48,7 +48,7 @@ final class TestServices {
    * The base URL of the InfluxDB server for this test run, without a trailing slash. Skips or fails
    * the calling test when there is none.
    */
-  static synchronized String influxUrl() {
+  public static synchronized String influxUrl() {
     String url = System.getenv(INFLUX_URL_VARIABLE);
     if (url != null && !url.isBlank()) {
       String trimmed = url.trim().replaceAll("/+$", "");
@@ -70,7 +70,7 @@ final class TestServices {
    * Skips the calling test with {@code reason}, or fails it when {@value #REQUIRE_SERVICES_VARIABLE}
    * is {@code 1}, so that CI never passes on tests that did not run.
    */
-  static void skipOrFail(String reason) {
+  public static void skipOrFail(String reason) {
     if ("1".equals(System.getenv(REQUIRE_SERVICES_VARIABLE))) {
       fail(reason + " (" + REQUIRE_SERVICES_VARIABLE + "=1 forbids skipping)");
     }

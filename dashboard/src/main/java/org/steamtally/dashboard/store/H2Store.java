@@ -1,0 +1,523 @@
+package org.steamtally.dashboard.store;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.sql.Connection;
+import java.sql.DriverManager;
+import java.sql.PreparedStatement;
+import java.sql.ResultSet;
+import java.sql.SQLException;
+import java.sql.Statement;
+import java.sql.Types;
+import java.time.Clock;
+import java.time.Duration;
+import java.time.Instant;
+import java.util.ArrayList;
+import java.util.EnumMap;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Objects;
+import java.util.StringJoiner;
+import java.util.concurrent.Executors;
+import java.util.concurrent.ScheduledExecutorService;
+import java.util.concurrent.TimeUnit;
+import org.steamtally.dashboard.store.Measurement.Field;
+
+/**
+ * The embedded store: an H2 database in file mode under a data directory, one table per measurement
+ * with the same names as the InfluxDB schema (docs/STORE.md): columns {@code site, unit}, the id tag
+ * (except {@code cycle}), {@code ts} (BIGINT, ms since the epoch) and one nullable column per field.
+ * The primary key is (site, unit, id, ts), the point's identity, and writes are {@code MERGE}s, so
+ * writing a point again replaces it.
+ *
+ * <p>Points older than the retention period are deleted by {@link #purgeExpired()}, which runs at
+ * opening and then on a fixed schedule; "now" comes from the injected clock. H2 commits each write
+ * batch and its store survives a killed process (it reopens at its last committed state).
+ */
+public final class H2Store implements StoreBackend {
+
+    /** Adapter name in meters and logs. */
+    public static final String NAME = "h2";
+
+    private static final String DATABASE_FILE = "steamtally";
+
+    /**
+     * Covering indexes for the queries behind shift summaries and alarm history: the cycle's energy
+     * and efficiency buckets, closure statistics, suspect sensors (only suspect rows, found by the
+     * leading {@code suspect} column) and alarm events by time.
+     */
+    private static final Map<Measurement, List<String>> SUMMARY_INDEX = Map.of(
+            Measurement.CYCLE, List.of("site", "unit", "ts", "heat_added_W", "net_work_W", "thermal_efficiency",
+                    "heat_rate_kJ_per_kWh"),
+            Measurement.CLOSURE, List.of("site", "unit", "ts", "closure", "z", "residual_W"),
+            Measurement.RECONCILIATION, List.of("site", "unit", "suspect", "ts", "sensor", "test_value"),
+            Measurement.ALARMS, List.of("site", "unit", "ts"));
+
+    private final Connection writeConnection;
+    /** Connections for queries, so that two can run at once (a shift summary asks several). */
+    private final java.util.concurrent.BlockingQueue<Connection> queryConnections;
+    private final List<Connection> allQueryConnections;
+    private final Clock clock;
+    private final Duration retention;
+    private final ScheduledExecutorService purger;
+    private final Map<Measurement, String> merges = new EnumMap<>(Measurement.class);
+    private final Map<Measurement, String> inserts = new EnumMap<>(Measurement.class);
+
+    private H2Store(Connection write, List<Connection> query, Clock clock, Duration retention) {
+        this.writeConnection = write;
+        this.allQueryConnections = List.copyOf(query);
+        this.queryConnections = new java.util.concurrent.ArrayBlockingQueue<>(query.size(), false, query);
+        this.clock = clock;
+        this.retention = retention;
+        this.purger = Executors.newSingleThreadScheduledExecutor(r -> {
+            Thread t = new Thread(r, "steamtally-store-h2-purge");
+            t.setDaemon(true);
+            return t;
+        });
+    }
+
+    /**
+     * Opens (creating if needed) the database in {@code dataDir} and schedules the retention purge.
+     *
+     * @param retention     how long points are kept, &gt; 0
+     * @param purgeInterval how often expired points are deleted, &gt; 0
+     * @throws StoreQueryException when the database cannot be opened (e.g. another process holds it)
+     */
+    public static H2Store open(Path dataDir, Duration retention, Duration purgeInterval, Clock clock) {
+        Objects.requireNonNull(clock, "clock");
+        if (retention.isNegative() || retention.isZero() || purgeInterval.isNegative() || purgeInterval.isZero()) {
+            throw new IllegalArgumentException("retention " + retention + " and purge interval " + purgeInterval
+                    + " must be positive");
+        }
+        try {
+            Files.createDirectories(dataDir);
+            // The store closes the database itself, after the writer has handed over its last batch;
+            // H2's own shutdown hook could close it first.
+            String url = "jdbc:h2:file:" + dataDir.toAbsolutePath().resolve(DATABASE_FILE) + ";DB_CLOSE_ON_EXIT=FALSE";
+            Connection write = DriverManager.getConnection(url, "sa", "");
+            List<Connection> query = List.of(DriverManager.getConnection(url, "sa", ""),
+                    DriverManager.getConnection(url, "sa", ""));
+            H2Store store = new H2Store(write, query, clock, retention);
+            store.createSchema();
+            store.purgeExpired();
+            long ms = purgeInterval.toMillis();
+            store.purger.scheduleWithFixedDelay(store::purgeQuietly, ms, ms, TimeUnit.MILLISECONDS);
+            return store;
+        } catch (SQLException | java.io.IOException e) {
+            throw new StoreQueryException("cannot open the embedded store in " + dataDir + ": " + e.getMessage(), e);
+        }
+    }
+
+    @Override
+    public String name() {
+        return NAME;
+    }
+
+    private static String q(String identifier) {
+        return '"' + identifier + '"';
+    }
+
+    private static String sqlType(Measurement.FieldType t) {
+        return switch (t) {
+            case DOUBLE -> "DOUBLE PRECISION";
+            case LONG -> "BIGINT";
+            case BOOLEAN -> "BOOLEAN";
+            case STRING -> "VARCHAR";
+        };
+    }
+
+    private static List<String> keyColumns(Measurement m) {
+        List<String> k = new ArrayList<>(List.of(Measurement.SITE_TAG, Measurement.UNIT_TAG));
+        if (m.hasIdTag()) {
+            k.add(m.idTag());
+        }
+        k.add("ts");
+        return k;
+    }
+
+    private void createSchema() throws SQLException {
+        synchronized (writeConnection) {
+            try (Statement st = writeConnection.createStatement()) {
+                for (Measurement m : Measurement.values()) {
+                    StringJoiner cols = new StringJoiner(", ");
+                    List<String> key = keyColumns(m);
+                    for (String k : key) {
+                        cols.add(q(k) + (k.equals("ts") ? " BIGINT NOT NULL" : " VARCHAR NOT NULL"));
+                    }
+                    for (Field f : m.fields()) {
+                        cols.add(q(f.name()) + " " + sqlType(f.type()));
+                    }
+                    StringJoiner pk = new StringJoiner(", ");
+                    key.forEach(k -> pk.add(q(k)));
+                    st.execute("CREATE TABLE IF NOT EXISTS " + q(m.measurementName()) + " (" + cols + ", PRIMARY KEY ("
+                            + pk + "))");
+                    List<String> covering = SUMMARY_INDEX.get(m);
+                    if (covering != null) {
+                        // Holds every column the unit-wide range queries read, so H2 answers them from
+                        // the index alone instead of fetching each row.
+                        StringJoiner ic = new StringJoiner(", ");
+                        covering.forEach(c -> ic.add(q(c)));
+                        st.execute("CREATE INDEX IF NOT EXISTS " + q(m.measurementName() + "_summary") + " ON "
+                                + q(m.measurementName()) + " (" + ic + ")");
+                    }
+                    StringJoiner all = new StringJoiner(", ");
+                    StringJoiner marks = new StringJoiner(", ");
+                    for (String k : key) {
+                        all.add(q(k));
+                        marks.add("?");
+                    }
+                    for (Field f : m.fields()) {
+                        all.add(q(f.name()));
+                        marks.add("?");
+                    }
+                    merges.put(m, "MERGE INTO " + q(m.measurementName()) + " (" + all + ") KEY (" + pk + ") VALUES ("
+                            + marks + ")");
+                    inserts.put(m, "INSERT INTO " + q(m.measurementName()) + " (" + all + ") VALUES (" + marks + ")");
+                }
+            }
+        }
+    }
+
+    @Override
+    public void write(List<Point> points) throws StoreUnavailableException {
+        Map<Measurement, List<Point>> byMeasurement = new EnumMap<>(Measurement.class);
+        for (Point p : points) {
+            if (!p.isEmpty()) {
+                byMeasurement.computeIfAbsent(p.measurement(), k -> new ArrayList<>()).add(p);
+            }
+        }
+        synchronized (writeConnection) {
+            try {
+                writeBatch(byMeasurement, inserts);
+            } catch (SQLException e) {
+                if (!isDuplicateKey(e)) {
+                    throw new StoreUnavailableException("embedded store write failed: " + e.getMessage(), e);
+                }
+                // A point of the batch is there already (a replay after a crash): write the batch
+                // again as MERGEs, which replace. Plain INSERTs are faster when nothing is replayed.
+                try {
+                    writeBatch(byMeasurement, merges);
+                } catch (SQLException again) {
+                    throw new StoreUnavailableException("embedded store write failed: " + again.getMessage(), again);
+                }
+            }
+        }
+    }
+
+    /** H2's SQLState for a duplicate primary key (DUPLICATE_KEY_1, ErrorCode 23505). */
+    private static final String DUPLICATE_KEY = "23505";
+
+    private static boolean isDuplicateKey(SQLException e) {
+        for (Throwable t = e; t != null; t = t.getCause()) {
+            if (t instanceof SQLException s) {
+                for (SQLException n = s; n != null; n = n.getNextException()) {
+                    if (DUPLICATE_KEY.equals(n.getSQLState())) {
+                        return true;
+                    }
+                }
+            }
+        }
+        return false;
+    }
+
+    private void writeBatch(Map<Measurement, List<Point>> byMeasurement, Map<Measurement, String> sql)
+            throws SQLException {
+        try {
+            writeConnection.setAutoCommit(false);
+            for (Map.Entry<Measurement, List<Point>> e : byMeasurement.entrySet()) {
+                Measurement m = e.getKey();
+                try (PreparedStatement ps = writeConnection.prepareStatement(sql.get(m))) {
+                    for (Point p : e.getValue()) {
+                        int i = 1;
+                        ps.setString(i++, p.site());
+                        ps.setString(i++, p.unit());
+                        if (m.hasIdTag()) {
+                            ps.setString(i++, p.id());
+                        }
+                        ps.setLong(i++, p.timestampMs());
+                        for (int f = 0; f < m.fields().size(); f++) {
+                            bind(ps, i++, m.fields().get(f).type(), p.value(f));
+                        }
+                        ps.addBatch();
+                    }
+                    ps.executeBatch();
+                }
+            }
+            writeConnection.commit();
+        } catch (SQLException e) {
+            try {
+                writeConnection.rollback();
+            } catch (SQLException suppressed) {
+                e.addSuppressed(suppressed);
+            }
+            throw e;
+        } finally {
+            try {
+                writeConnection.setAutoCommit(true);
+            } catch (SQLException ignored) {
+                // The next write sets it again.
+            }
+        }
+    }
+
+    private static void bind(PreparedStatement ps, int i, Measurement.FieldType type, Object v) throws SQLException {
+        if (v == null) {
+            ps.setNull(i, switch (type) {
+                case DOUBLE -> Types.DOUBLE;
+                case LONG -> Types.BIGINT;
+                case BOOLEAN -> Types.BOOLEAN;
+                case STRING -> Types.VARCHAR;
+            });
+            return;
+        }
+        switch (type) {
+            case DOUBLE -> ps.setDouble(i, (Double) v);
+            case LONG -> ps.setLong(i, (Long) v);
+            case BOOLEAN -> ps.setBoolean(i, (Boolean) v);
+            case STRING -> ps.setString(i, (String) v);
+        }
+    }
+
+    /**
+     * Deletes every point older than the retention period before the clock's now.
+     *
+     * @return the number of points deleted
+     */
+    public long purgeExpired() {
+        long cutoff = clock.instant().minus(retention).toEpochMilli();
+        long deleted = 0;
+        synchronized (writeConnection) {
+            try {
+                for (Measurement m : Measurement.values()) {
+                    try (PreparedStatement del = writeConnection.prepareStatement(
+                            "DELETE FROM " + q(m.measurementName()) + " WHERE " + q("ts") + " < ?")) {
+                        del.setLong(1, cutoff);
+                        deleted += del.executeUpdate();
+                    }
+                }
+            } catch (SQLException e) {
+                throw new StoreQueryException("embedded store purge failed: " + e.getMessage(), e);
+            }
+        }
+        return deleted;
+    }
+
+    private void purgeQuietly() {
+        try {
+            purgeExpired();
+        } catch (RuntimeException e) {
+            System.getLogger(H2Store.class.getName()).log(System.Logger.Level.ERROR, e.getMessage(), e);
+        }
+    }
+
+    private interface Rows<T> {
+        T read(ResultSet rs) throws SQLException;
+    }
+
+    private <T> T query(String sql, Rows<T> rows, Object... params) {
+        Connection c;
+        try {
+            c = queryConnections.take();
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            throw new StoreQueryException("interrupted while waiting for a connection to the embedded store", e);
+        }
+        try (PreparedStatement ps = c.prepareStatement(sql)) {
+            for (int i = 0; i < params.length; i++) {
+                ps.setObject(i + 1, params[i]);
+            }
+            try (ResultSet rs = ps.executeQuery()) {
+                return rows.read(rs);
+            }
+        } catch (SQLException e) {
+            throw new StoreQueryException("embedded store query failed: " + e.getMessage() + " [" + sql + "]", e);
+        } finally {
+            queryConnections.add(c);
+        }
+    }
+
+    private static String unitRange() {
+        return q("site") + " = ? AND " + q("unit") + " = ? AND " + q("ts") + " >= ? AND " + q("ts") + " < ?";
+    }
+
+    @Override
+    public List<Point> points(Measurement m, String site, String unit, Instant from, Instant to) {
+        String order = m.hasIdTag() ? q(m.idTag()) + ", " + q("ts") : q("ts");
+        return query("SELECT * FROM " + q(m.measurementName()) + " WHERE " + unitRange() + " ORDER BY " + order,
+                rs -> {
+                    List<Point> out = new ArrayList<>();
+                    while (rs.next()) {
+                        out.add(point(m, rs));
+                    }
+                    return out;
+                }, site, unit, from.toEpochMilli(), to.toEpochMilli());
+    }
+
+    private static Point point(Measurement m, ResultSet rs) throws SQLException {
+        Object[] values = new Object[m.fields().size()];
+        for (int f = 0; f < values.length; f++) {
+            Field field = m.fields().get(f);
+            String col = field.name();
+            values[f] = switch (field.type()) {
+                case DOUBLE -> nullable(rs, rs.getDouble(col));
+                case LONG -> nullable(rs, rs.getLong(col));
+                case BOOLEAN -> nullable(rs, rs.getBoolean(col));
+                case STRING -> rs.getString(col);
+            };
+        }
+        return new Point(m, rs.getString("site"), rs.getString("unit"), m.hasIdTag() ? rs.getString(m.idTag()) : null,
+                rs.getLong("ts"), values);
+    }
+
+    private static Object nullable(ResultSet rs, Object v) throws SQLException {
+        return rs.wasNull() ? null : v;
+    }
+
+    /*
+     * Buckets and closure statistics are aggregated here from the streamed rows rather than by SQL
+     * aggregates: H2 2.5 spends several times longer per row in AVG/MIN/MAX/SUM than in reading the
+     * (covering) index, which decided whether an 8-hour summary at 1 Hz fits its time budget
+     * (docs/PERFORMANCE.md).
+     */
+
+    @Override
+    public Map<String, List<Bucket>> buckets(SeriesRef s, Instant from, Instant to, Duration width) {
+        long fromMs = from.toEpochMilli();
+        long widthMs = width.toMillis();
+        if (widthMs < 1) {
+            throw new IllegalArgumentException("bucket width " + width + " must be at least 1 ms");
+        }
+        int n = s.fields().size();
+        StringBuilder sql = new StringBuilder("SELECT ").append(q("ts"));
+        for (String f : s.fields()) {
+            sql.append(", ").append(q(f));
+        }
+        sql.append(" FROM ").append(q(s.measurement().measurementName())).append(" WHERE ").append(unitRange());
+        List<Object> params = new ArrayList<>(List.of(s.site(), s.unit(), fromMs, to.toEpochMilli()));
+        if (s.measurement().hasIdTag()) {
+            sql.append(" AND ").append(q(s.measurement().idTag())).append(" = ?");
+            params.add(s.id());
+        }
+        return query(sql.toString(), rs -> {
+            // Per bucket index: for each field count, sum, min, max.
+            java.util.TreeMap<Long, double[]> acc = new java.util.TreeMap<>();
+            while (rs.next()) {
+                long index = (rs.getLong(1) - fromMs) / widthMs;
+                double[] a = acc.get(index);
+                for (int i = 0; i < n; i++) {
+                    double v = rs.getDouble(2 + i);
+                    if (rs.wasNull()) {
+                        continue;
+                    }
+                    if (a == null) {
+                        a = new double[4 * n];
+                        for (int k = 0; k < n; k++) {
+                            a[4 * k + 2] = Double.POSITIVE_INFINITY;
+                            a[4 * k + 3] = Double.NEGATIVE_INFINITY;
+                        }
+                        acc.put(index, a);
+                    }
+                    a[4 * i] += 1;
+                    a[4 * i + 1] += v;
+                    a[4 * i + 2] = Math.min(a[4 * i + 2], v);
+                    a[4 * i + 3] = Math.max(a[4 * i + 3], v);
+                }
+            }
+            Map<String, List<Bucket>> out = new LinkedHashMap<>();
+            s.fields().forEach(f -> out.put(f, new ArrayList<>()));
+            for (Map.Entry<Long, double[]> e : acc.entrySet()) {
+                Instant start = Instant.ofEpochMilli(fromMs + e.getKey() * widthMs);
+                double[] a = e.getValue();
+                for (int i = 0; i < n; i++) {
+                    long count = (long) a[4 * i];
+                    if (count > 0) {
+                        out.get(s.fields().get(i)).add(new Bucket(start, a[4 * i + 1] / count, a[4 * i + 2],
+                                a[4 * i + 3], count));
+                    }
+                }
+            }
+            return out;
+        }, params.toArray());
+    }
+
+    @Override
+    public List<ClosureStats> closureStats(String site, String unit, Instant from, Instant to) {
+        return query("SELECT " + q("closure") + ", " + q("z") + ", " + q("residual_W") + " FROM " + q("closure")
+                + " WHERE " + unitRange(), rs -> {
+                    // Per id: count, sum of residuals, sum of z, min z, max z, count outside.
+                    Map<String, double[]> acc = new java.util.TreeMap<>();
+                    while (rs.next()) {
+                        double[] a = acc.computeIfAbsent(rs.getString(1), k -> new double[] {
+                            0, 0, 0, Double.POSITIVE_INFINITY, Double.NEGATIVE_INFINITY, 0});
+                        double z = rs.getDouble(2);
+                        a[0] += 1;
+                        a[1] += rs.getDouble(3);
+                        a[2] += z;
+                        a[3] = Math.min(a[3], z);
+                        a[4] = Math.max(a[4], z);
+                        if (Math.abs(z) > ClosureStats.Z_LIMIT) {
+                            a[5] += 1;
+                        }
+                    }
+                    List<ClosureStats> out = new ArrayList<>(acc.size());
+                    for (Map.Entry<String, double[]> e : acc.entrySet()) {
+                        double[] a = e.getValue();
+                        out.add(new ClosureStats(e.getKey(), (long) a[0], a[1] / a[0], a[2] / a[0], a[3], a[4],
+                                (long) a[5]));
+                    }
+                    return out;
+                }, site, unit, from.toEpochMilli(), to.toEpochMilli());
+    }
+
+    @Override
+    public List<SuspectSensor> suspects(String site, String unit, Instant from, Instant to) {
+        return query("SELECT " + q("sensor") + ", COUNT(*), MAX(" + q("test_value") + ") FROM " + q("reconciliation")
+                + " WHERE " + unitRange() + " AND " + q("suspect") + " = TRUE GROUP BY " + q("sensor")
+                + " ORDER BY 2 DESC, 3 DESC, 1", rs -> {
+                    List<SuspectSensor> out = new ArrayList<>();
+                    while (rs.next()) {
+                        out.add(new SuspectSensor(rs.getString(1), rs.getLong(2), rs.getDouble(3)));
+                    }
+                    return out;
+                }, site, unit, from.toEpochMilli(), to.toEpochMilli());
+    }
+
+    @Override
+    public List<StoredAlarmEvent> alarmEvents(String site, String unit, Instant from, Instant to) {
+        return query("SELECT * FROM " + q("alarms") + " WHERE " + unitRange() + " ORDER BY " + q("ts") + ", "
+                + q("alarm"), this::alarms, site, unit, from.toEpochMilli(), to.toEpochMilli());
+    }
+
+    @Override
+    public List<StoredAlarmEvent> lastAlarmEventsBefore(String site, String unit, Instant t) {
+        return query("SELECT * FROM " + q("alarms") + " a WHERE a." + q("site") + " = ? AND a." + q("unit")
+                + " = ? AND a." + q("ts") + " = (SELECT MAX(b." + q("ts") + ") FROM " + q("alarms") + " b WHERE b."
+                + q("site") + " = a." + q("site") + " AND b." + q("unit") + " = a." + q("unit") + " AND b."
+                + q("alarm") + " = a." + q("alarm") + " AND b." + q("ts") + " < ?) ORDER BY a." + q("alarm"),
+                this::alarms, site, unit, t.toEpochMilli());
+    }
+
+    private List<StoredAlarmEvent> alarms(ResultSet rs) throws SQLException {
+        List<StoredAlarmEvent> out = new ArrayList<>();
+        while (rs.next()) {
+            out.add(ResultPoints.alarmEvent(point(Measurement.ALARMS, rs)));
+        }
+        return out;
+    }
+
+    @Override
+    public void close() {
+        purger.shutdownNow();
+        synchronized (writeConnection) {
+            try {
+                for (Connection c : allQueryConnections) {
+                    c.close();
+                }
+                writeConnection.close();
+            } catch (SQLException e) {
+                throw new StoreQueryException("closing the embedded store: " + e.getMessage(), e);
+            }
+        }
+    }
+}

@@ -1,0 +1,80 @@
+package org.steamtally.dashboard.store;
+
+import java.nio.file.Path;
+import java.time.Duration;
+import java.util.Objects;
+
+/**
+ * How the store queues, batches and spools points.
+ *
+ * @param spoolDir       directory of the on-disk journal
+ * @param queueCapacity  points held in memory before further points go straight to the journal
+ * @param batchSize      points per write to the store
+ * @param spoolMaxBytes  bound on the journal; when an append exceeds it the oldest points are dropped
+ * @param segmentBytes   journal segment size; at most a quarter of {@code spoolMaxBytes}
+ * @param syncInterval   how often appended journal bytes are forced to disk, 1 ms to 1 s
+ * @param retryMin       first wait after a failed write before the store is tried again
+ * @param retryMax       longest such wait (the wait doubles after each failure up to this)
+ */
+public record SpoolSettings(Path spoolDir, int queueCapacity, int batchSize, long spoolMaxBytes, long segmentBytes,
+        Duration syncInterval, Duration retryMin, Duration retryMax) {
+
+    /** Seconds in a day: the default journal holds 24 h of points at the nominal rate. */
+    private static final long DAY_S = 86_400;
+
+    public SpoolSettings {
+        Objects.requireNonNull(spoolDir, "spoolDir");
+        if (queueCapacity < 1 || batchSize < 1) {
+            throw new IllegalArgumentException("queue capacity " + queueCapacity + " and batch size " + batchSize
+                    + " must be ≥ 1");
+        }
+        if (segmentBytes < 1024 || spoolMaxBytes < 4 * segmentBytes) {
+            throw new IllegalArgumentException("spool max " + spoolMaxBytes + " B must be at least four segments of "
+                    + segmentBytes + " B (≥ 1024 B)");
+        }
+        if (syncInterval.isNegative() || syncInterval.isZero() || syncInterval.compareTo(Duration.ofSeconds(1)) > 0) {
+            throw new IllegalArgumentException("spool sync interval " + syncInterval + " must be in (0, 1 s]");
+        }
+        if (retryMin.isNegative() || retryMin.isZero() || retryMax.compareTo(retryMin) < 0) {
+            throw new IllegalArgumentException("retry waits " + retryMin + " to " + retryMax
+                    + " must be positive and ordered");
+        }
+    }
+
+    /**
+     * Defaults for a given nominal load: a journal that holds 24 hours of it, sync every second,
+     * batches of 1000 points, retries from 0.5 s backing off to 30 s.
+     *
+     * @param pointsPerSecond nominal points per second (e.g. {@link ResultPoints#of} of a record times
+     *                        records per second), &gt; 0
+     * @param bytesPerPoint   journal bytes per point (a record's encoded size plus 8 bytes framing)
+     */
+    public static SpoolSettings forNominalRate(Path spoolDir, double pointsPerSecond, double bytesPerPoint) {
+        if (!(pointsPerSecond > 0.0) || !(bytesPerPoint > 0.0)) {
+            throw new IllegalArgumentException("nominal rate " + pointsPerSecond + " points/s and " + bytesPerPoint
+                    + " B/point must be positive");
+        }
+        long max = (long) Math.ceil(pointsPerSecond * bytesPerPoint * DAY_S);
+        long segment = Math.max(1024, Math.min(64L << 20, max / 16));
+        max = Math.max(max, 4 * segment);
+        return new SpoolSettings(spoolDir, 65_536, 1000, max, segment, Duration.ofSeconds(1),
+                Duration.ofMillis(500), Duration.ofSeconds(30));
+    }
+
+    /** Journal bytes of one point: its encoding plus the record framing. */
+    public static int journalBytes(Point p) {
+        return PointCodec.encode(p).length + Journal.HEADER_BYTES;
+    }
+
+    /** The same settings with other retry waits (tests and impatient deployments). */
+    public SpoolSettings withRetry(Duration min, Duration max) {
+        return new SpoolSettings(spoolDir, queueCapacity, batchSize, spoolMaxBytes, segmentBytes, syncInterval, min,
+                max);
+    }
+
+    /** The same settings with another journal bound and segment size. */
+    public SpoolSettings withSpoolBytes(long maxBytes, long segment) {
+        return new SpoolSettings(spoolDir, queueCapacity, batchSize, maxBytes, segment, syncInterval, retryMin,
+                retryMax);
+    }
+}

@@ -1,0 +1,61 @@
+package org.steamtally.dashboard.store;
+
+import java.time.Instant;
+import java.util.List;
+import java.util.Objects;
+
+/**
+ * The data-reconciliation part of one result record (VDI 2048) as the store keeps it, measurement
+ * {@code reconciliation}: the global test and one entry per reconciled sensor. The result record's
+ * {@code reconciliation} object maps to this one to one.
+ *
+ * @param chi2       the quality criterion: the weighted sum of squared corrections, dimensionless
+ * @param chi2Limit  the χ² quantile it is compared with at the chosen confidence
+ * @param redundancy degrees of freedom of the test (number of independent constraints), ≥ 0
+ * @param passed     whether {@code chi2 ≤ chi2Limit}
+ */
+public record StoredReconciliation(Instant timestamp, String site, String unit, double chi2, double chi2Limit,
+        long redundancy, boolean passed, List<Sensor> sensors) {
+
+    /**
+     * One reconciled sensor. Values in the SI unit of the sensor's quantity.
+     *
+     * @param measured        the measured value
+     * @param reconciled      the reconciled value
+     * @param sigmaReconciled standard uncertainty of the reconciled value, &gt; 0
+     * @param testValue       the individual test value |v| / σ_v of its correction, ≥ 0
+     * @param suspect         whether the test flags the sensor as suspect
+     */
+    public record Sensor(String id, double measured, double reconciled, double sigmaReconciled, double testValue,
+            boolean suspect) {
+        public Sensor {
+            Objects.requireNonNull(id, "id");
+            if (id.isEmpty()) {
+                throw new IllegalArgumentException("reconciled sensor: the id must not be empty");
+            }
+            finite(measured, "measured", id);
+            finite(reconciled, "reconciled", id);
+            finite(sigmaReconciled, "sigma_reconciled", id);
+            finite(testValue, "test_value", id);
+        }
+    }
+
+    public StoredReconciliation {
+        Objects.requireNonNull(timestamp, "timestamp");
+        Objects.requireNonNull(site, "site");
+        Objects.requireNonNull(unit, "unit");
+        finite(chi2, "chi2", "reconciliation");
+        finite(chi2Limit, "chi2_limit", "reconciliation");
+        if (redundancy < 0) {
+            throw new IllegalArgumentException("reconciliation: redundancy " + redundancy + " must be ≥ 0");
+        }
+        sensors = List.copyOf(sensors);
+        timestamp = Instant.ofEpochMilli(timestamp.toEpochMilli());
+    }
+
+    private static void finite(double v, String name, String where) {
+        if (!Double.isFinite(v)) {
+            throw new IllegalArgumentException(where + ": " + name + " " + v + " must be finite");
+        }
+    }
+}

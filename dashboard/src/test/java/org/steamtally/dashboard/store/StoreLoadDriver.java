@@ -1,0 +1,225 @@
+package org.steamtally.dashboard.store;
+
+import io.micrometer.core.instrument.simple.SimpleMeterRegistry;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.Clock;
+import java.time.Duration;
+import java.time.Instant;
+import java.time.LocalDate;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import java.util.Optional;
+import java.util.OptionalDouble;
+import org.steamtally.calc.cycle.ClosureResult;
+import org.steamtally.calc.cycle.ComponentResult;
+import org.steamtally.calc.cycle.CycleResult;
+import org.steamtally.calc.cycle.Phase;
+import org.steamtally.calc.cycle.StateResult;
+import org.steamtally.calc.cycle.UnitResult;
+
+/**
+ * Load driver for the store (a benchmark, not a test): sustained points per second into each
+ * adapter, and the time of an 8-hour shift summary from the embedded store. docs/PERFORMANCE.md
+ * gives the command and the figures.
+ *
+ * <p>The record has the shape of the regenerative example (deploy/examples/regenerative.yaml): 20
+ * states, 8 components, the cycle and 6 first-law checks, 35 points; its reconciliation covers the
+ * example's 36 sensors, 37 points. The values are made up.
+ *
+ * <pre>
+ * StoreLoadDriver h2 UNITS SECONDS             # records of UNITS units at 1 Hz for SECONDS simulated seconds
+ * StoreLoadDriver influxdb URL UNITS SECONDS
+ * StoreLoadDriver shift [DIR]                  # 8 h at 1 Hz for one unit, then shift summaries;
+ *                                              # with DIR, the data of an earlier run there
+ * </pre>
+ */
+public final class StoreLoadDriver {
+
+    private static final int STATES = 20;
+    private static final int COMPONENTS = 8;
+    private static final int CLOSURES = 6;
+    private static final int SENSORS = 36;
+    private static final Instant START = Instant.parse("2026-11-02T05:00:00Z");
+
+    private StoreLoadDriver() {
+    }
+
+    static UnitResult record(String unit, Instant ts, int k) {
+        List<StateResult> states = new ArrayList<>(STATES);
+        for (int i = 0; i < STATES; i++) {
+            states.add(new StateResult("state_" + i, of(1.0e6 * (i + 1) + k % 7), of(300.0 + 25 * i), of(2.0e5 * i),
+                    of(500.0 * i), of(0.001 * (i + 1)), i == 6 ? of(0.9) : none(),
+                    Optional.of(i == 6 ? Phase.TWO_PHASE : Phase.VAPOUR), of(10.0 + i), of(125.0 - i),
+                    true, Optional.empty()));
+        }
+        List<ComponentResult> components = new ArrayList<>(COMPONENTS);
+        for (int i = 0; i < COMPONENTS; i++) {
+            components.add(new ComponentResult("component_" + i, "turbine", of(1.0e6 * i), of(2.0e7 + i),
+                    of(0.88), of(1.0e6 + k % 11), true, Optional.empty()));
+        }
+        double eta = 0.38 + 0.001 * (k % 13);
+        CycleResult cycle = new CycleResult(of(3.9e8), of(2.4e8), of(1.52e8), of(2.0e6), of(1.5e8), of(eta),
+                of(0.013), of(3600.0 / eta), of(0.62), of(0.55));
+        List<ClosureResult> closures = new ArrayList<>(CLOSURES);
+        for (int i = 0; i < CLOSURES; i++) {
+            double z = ((k + i) % 9 - 4) * 0.6;
+            closures.add(new ClosureResult("check_" + i, z * 1.0e6, 1.0e6, z));
+        }
+        return new UnitResult(ts, "fernholm", unit, states, components, cycle, closures);
+    }
+
+    static StoredReconciliation reconciliation(String unit, Instant ts, int k) {
+        List<StoredReconciliation.Sensor> sensors = new ArrayList<>(SENSORS);
+        for (int i = 0; i < SENSORS; i++) {
+            boolean suspect = (k + i) % 97 == 0;
+            sensors.add(new StoredReconciliation.Sensor("S-" + i, 100.0 + i, 100.1 + i, 0.3, suspect ? 3.5 : 0.4,
+                    suspect));
+        }
+        return new StoredReconciliation(ts, "fernholm", unit, 8.2, 15.5, 9, true, sensors);
+    }
+
+    private static OptionalDouble of(double v) {
+        return OptionalDouble.of(v);
+    }
+
+    private static OptionalDouble none() {
+        return OptionalDouble.empty();
+    }
+
+    public static void main(String[] args) throws Exception {
+        switch (args[0]) {
+            case "h2" -> {
+                Path dir = Files.createTempDirectory("steamtally-load-h2");
+                throughput(H2Store.open(dir.resolve("data"), Duration.ofDays(3650), Duration.ofHours(1),
+                        Clock.systemUTC()), dir, Integer.parseInt(args[1]), Integer.parseInt(args[2]));
+            }
+            case "influxdb" -> {
+                Path dir = Files.createTempDirectory("steamtally-load-influx");
+                String db = "steamtally_load_" + System.nanoTime();
+                throughput(InfluxStore.connect(InfluxSettings.of(args[1], db)), dir, Integer.parseInt(args[2]),
+                        Integer.parseInt(args[3]));
+                try (var influx = org.influxdb.InfluxDBFactory.connect(args[1])) {
+                    influx.query(new org.influxdb.dto.Query("DROP DATABASE \"" + db + "\"", null, true));
+                }
+            }
+            case "shift" -> shift(args.length > 1 ? Path.of(args[1]) : null);
+            default -> throw new IllegalArgumentException("usage: h2 UNITS SECONDS | influxdb URL UNITS SECONDS"
+                    + " | shift; got " + Arrays.toString(args));
+        }
+    }
+
+    /** Writes UNITS records per simulated second as fast as the store takes them. */
+    private static void throughput(StoreBackend backend, Path dir, int units, int seconds) throws Exception {
+        int perRecord = ResultPoints.of(record("u", START, 0)).size();
+        try (SpooledStore store = SpooledStore.open(backend, SpoolSettings.forNominalRate(dir.resolve("spool"),
+                units * perRecord, 300), new SimpleMeterRegistry(), StoreListener.NONE, Clock.systemUTC())) {
+            // Warm-up: one simulated minute, not counted.
+            for (int k = 0; k < 60; k++) {
+                for (int u = 0; u < units; u++) {
+                    store.writeResult(record("unit" + u, START.minusSeconds(3600 - k), k));
+                }
+                store.flush(Duration.ofMinutes(5));
+            }
+            store.awaitDrained(Duration.ofMinutes(5));
+            long t0 = System.nanoTime();
+            for (int k = 0; k < seconds; k++) {
+                for (int u = 0; u < units; u++) {
+                    store.writeResult(record("unit" + u, START.plusSeconds(k), k));
+                }
+                // Bounded: keep at most a few simulated seconds in memory, as a live feed would.
+                if (k % 5 == 4 && !store.flush(Duration.ofMinutes(5))) {
+                    throw new IllegalStateException("store did not keep up");
+                }
+            }
+            if (!store.awaitDrained(Duration.ofMinutes(10))) {
+                throw new IllegalStateException("store did not drain");
+            }
+            double s = (System.nanoTime() - t0) / 1e9;
+            long points = (long) units * seconds * perRecord;
+            System.out.printf("%s: %d units x %d s x %d points = %d points in %.2f s: %.0f points/s, %.0f records/s"
+                    + " (1 Hz per unit needs %d points/s), spooled %d%n", backend.name(), units, seconds,
+                    perRecord, points, s, points / s, units * (double) seconds / s, units * perRecord,
+                    store.spooledPoints());
+        }
+    }
+
+    /** 8 hours at 1 Hz of one unit, then shift summaries: first after reopening, then warm. */
+    private static void shift(Path existing) throws Exception {
+        Path dir = existing != null ? existing : Files.createTempDirectory("steamtally-load-shift");
+        Duration eight = Duration.ofHours(8);
+        if (existing == null) {
+            load(dir, eight);
+        }
+        summaries(dir, eight);
+    }
+
+    private static void load(Path dir, Duration eight) throws Exception {
+        // Two minutes beyond the shift, so that windows shifted by up to a minute still hold 8 h of data.
+        int seconds = (int) eight.plusMinutes(2).toSeconds();
+        long t0 = System.nanoTime();
+        try (H2Store h2 = H2Store.open(dir.resolve("data"), Duration.ofDays(3650), Duration.ofHours(1),
+                Clock.systemUTC())) {
+            List<Point> batch = new ArrayList<>();
+            for (int k = 0; k < seconds; k++) {
+                Instant ts = START.plusSeconds(k);
+                batch.addAll(ResultPoints.of(record("unit1", ts, k)));
+                batch.addAll(ResultPoints.of(reconciliation("unit1", ts, k)));
+                if (k % 30 == 29) {
+                    h2.write(batch);
+                    batch.clear();
+                }
+                if (k % 1800 == 0) {
+                    h2.write(List.of(ResultPoints.of(new StoredAlarmEvent(ts, "fernholm", "unit1", "closure_" + k,
+                            "transition", "high", "normal", "unacknowledged", true, none(), none(),
+                            Optional.empty(), Optional.empty()))));
+                    h2.write(List.of(ResultPoints.of(new StoredAlarmEvent(ts.plusSeconds(600), "fernholm", "unit1",
+                            "closure_" + k, "transition", "unacknowledged", "normal", "normal", false, none(),
+                            none(), Optional.empty(), Optional.empty()))));
+                }
+            }
+            h2.write(batch);
+        }
+        System.out.printf("loaded %d s of one unit (%d points per second) in %.1f s%n", seconds,
+                ResultPoints.of(record("u", START, 0)).size() + ResultPoints.of(reconciliation("u", START, 0)).size(),
+                (System.nanoTime() - t0) / 1e9);
+        System.out.println("data in " + dir);
+    }
+
+    private static void summaries(Path dir, Duration eight) throws Exception {
+        // CPU time of the whole process: the summary's queries run in two threads.
+        com.sun.management.OperatingSystemMXBean os = (com.sun.management.OperatingSystemMXBean)
+                java.lang.management.ManagementFactory.getOperatingSystemMXBean();
+        try (SpooledStore store = SpooledStore.open(H2Store.open(dir.resolve("data"), Duration.ofDays(3650),
+                Duration.ofHours(1), Clock.systemUTC()), SpoolSettings.forNominalRate(dir.resolve("spool"), 100,
+                300), new SimpleMeterRegistry(), StoreListener.NONE, Clock.systemUTC())) {
+            ShiftSummary first = null;
+            double[] ms = new double[21];
+            double[] cpu = new double[21];
+            for (int i = 0; i < ms.length; i++) {
+                // A new window each time (shifted by i seconds), so H2 cannot answer from its result cache.
+                Instant start = START.plusSeconds(i);
+                Shift shift = new Shift(LocalDate.of(2026, 11, 2), "bench", start, start.plus(eight));
+                long s = System.nanoTime();
+                long c = os.getProcessCpuTime();
+                ShiftSummary summary = store.shiftSummary("fernholm", "unit1", shift);
+                cpu[i] = (os.getProcessCpuTime() - c) / 1e6;
+                ms[i] = (System.nanoTime() - s) / 1e6;
+                if (first == null) {
+                    first = summary;
+                }
+            }
+            double[] warm = Arrays.copyOfRange(ms, 1, ms.length);
+            double[] warmCpu = Arrays.copyOfRange(cpu, 1, cpu.length);
+            Arrays.sort(warm);
+            Arrays.sort(warmCpu);
+            System.out.printf("8-hour shift summary from H2: first after reopening %.1f ms (CPU %.1f ms); warm"
+                    + " median %.1f ms (CPU %.1f ms), max %.1f ms over %d shifted windows%n", ms[0], cpu[0],
+                    warm[warm.length / 2], warmCpu[warmCpu.length / 2], warm[warm.length - 1], warm.length);
+            System.out.printf("  (energy in %.1f MWh, out %.1f MWh, covered %s, %d checks, alarms active %s,"
+                    + " %d suspects)%n", first.energyInMWh(), first.energyOutMWh(), first.covered(),
+                    first.closures().size(), first.alarmsActive(), first.topSuspects().size());
+        }
+    }
+}
