@@ -60,8 +60,9 @@ import org.yaml.snakeyaml.nodes.SequenceNode;
  * at the element they concern. All problems are collected and thrown together.
  *
  * <p>Top-level sections {@code alarms} and {@code collector} are reserved for the alarm and
- * collector settings that live in the same file; this loader accepts them unread, except that the
- * problems {@link AlarmSettingsLoader} finds in {@code alarms} are reported with its own
+ * collector settings that live in the same file, and {@code scenario} for a simulator scenario
+ * ({@link ScenarioLoader}); this loader accepts them unread, except that the problems
+ * {@link AlarmSettingsLoader} finds in {@code alarms} are reported with its own
  * ({@link CollectorSectionReader} reads {@code collector}). Any other unknown key, at any level, is
  * a problem.
  */
@@ -71,7 +72,7 @@ public final class PlantDescriptionLoader {
     public static final Duration DEFAULT_MAX_AGE = Duration.ofSeconds(10);
 
     /** Top-level sections read by other parts of steamtally, accepted here without being read. */
-    public static final Set<String> RESERVED_SECTIONS = Set.of("alarms", "collector");
+    public static final Set<String> RESERVED_SECTIONS = Set.of("alarms", "collector", ScenarioLoader.SECTION);
 
     private static final Pattern DURATION = Pattern.compile("(\\d+(?:\\.\\d+)?)\\s*(ms|s|min|h)");
     private static final Pattern UNIT_PATH = Pattern.compile("^units\\[(\\d+)\\]");
