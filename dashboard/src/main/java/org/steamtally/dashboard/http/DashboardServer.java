@@ -82,7 +82,7 @@ public final class DashboardServer {
         var stream = new StreamResource(vertx, plant, sources.live(), sources.alarms(), sources.meters());
         var diagram = new DiagramResource(plant, sources.live());
         var plantResource = new PlantResource(plant);
-        var history = new HistoryResource(vertx, plant, sources.history(), clock);
+        var history = new HistoryResource(vertx, plant, sources.history());
         var health = new HealthResource(sources.live());
         var metrics = new MetricsResource(sources.meters());
         Buffer openApi = resource("openapi.yaml");

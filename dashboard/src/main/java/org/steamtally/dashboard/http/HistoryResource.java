@@ -6,7 +6,6 @@ import io.vertx.core.json.JsonObject;
 import io.vertx.ext.web.RoutingContext;
 import java.time.Duration;
 import java.time.Instant;
-import java.time.InstantSource;
 import java.time.format.DateTimeParseException;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
@@ -63,14 +62,11 @@ final class HistoryResource {
     private final Vertx vertx;
     private final PlantDescription plant;
     private final Optional<DashboardSources.History> history;
-    private final InstantSource clock;
 
-    HistoryResource(Vertx vertx, PlantDescription plant, Optional<DashboardSources.History> history,
-            InstantSource clock) {
+    HistoryResource(Vertx vertx, PlantDescription plant, Optional<DashboardSources.History> history) {
         this.vertx = vertx;
         this.plant = plant;
         this.history = history;
-        this.clock = clock;
     }
 
     // ------------------------------------------------------------------ trends
@@ -121,7 +117,7 @@ final class HistoryResource {
             }
         }
         String closure = Optional.ofNullable(ctx.queryParams().get("closure")).orElse("cycle");
-        DashboardSources.History h = store("trends");
+        DashboardSources.History h = store("trends are");
         String site = plant.siteId();
         Duration width = bucket;
         blocking(ctx, () -> {
@@ -225,15 +221,15 @@ final class HistoryResource {
         if (!format.equals("json") && !format.equals("csv")) {
             throw ApiException.badRequest("query parameter 'format' must be 'json' or 'csv', was '" + format + "'");
         }
-        DashboardSources.History h = store("shift summaries");
-        // Every shift that starts in the range and has started by now.
-        Instant now = clock.instant();
+        DashboardSources.History h = store("shift summaries are");
+        // Every shift that starts in the range; those that have not started by the store's clock are
+        // dropped once summarised (their summary ends where they start).
         List<Shift> shifts = new ArrayList<>();
         Shift s = h.shifts().shiftContaining(range[0]);
         if (s.start().isBefore(range[0])) {
             s = h.shifts().next(s);
         }
-        while (s.start().isBefore(range[1]) && s.start().isBefore(now)) {
+        while (s.start().isBefore(range[1])) {
             if (shifts.size() == MAX_SHIFTS) {
                 throw ApiException.badRequest("the range from " + range[0] + " to " + range[1] + " holds more than "
                         + MAX_SHIFTS + " shifts; ask for a shorter range ('from', 'to')");
@@ -266,7 +262,10 @@ final class HistoryResource {
             List<Shift> shifts) {
         List<ShiftSummary> out = new ArrayList<>(shifts.size());
         for (Shift s : shifts) {
-            out.add(h.store().shiftSummary(site, unit, s));
+            ShiftSummary sum = h.store().shiftSummary(site, unit, s);
+            if (sum.until().isAfter(s.start())) {
+                out.add(sum);
+            }
         }
         return out;
     }
@@ -285,7 +284,7 @@ final class HistoryResource {
     void alarmHistory(RoutingContext ctx) {
         String unit = UnitsResource.knownUnit(plant, ctx);
         Instant[] range = range(ctx);
-        DashboardSources.History h = store("alarm history");
+        DashboardSources.History h = store("alarm history is");
         String site = plant.siteId();
         blocking(ctx, () -> {
             List<StoredAlarmEvent> events = h.store().alarmHistory(site, unit, range[0], range[1]);
@@ -308,7 +307,7 @@ final class HistoryResource {
 
     private DashboardSources.History store(String what) {
         return history.orElseThrow(() -> new ApiException(501, "no result store is connected to this dashboard, so "
-                + what + " are not available; the live views work without one"));
+                + what + " not available; the live views work without one"));
     }
 
     private void blocking(RoutingContext ctx, Callable<JsonObject> query) {

@@ -211,6 +211,18 @@ class HistoryApiTest {
     }
 
     @Test
+    void shiftsThatHaveNotStartedByTheStoresClockAreLeftOutAndTheRunningOneIsMarked() {
+        JsonArray shifts = ok("/api/v1/units/unit3/shifts?from=2026-10-25T20:00:00Z&to=2026-10-26T12:00:00Z")
+                .getJsonArray("shifts");
+        assertEquals(1, shifts.size(), shifts.encode());
+        JsonObject night = shifts.getJsonObject(0);
+        assertEquals("2026-10-25T21:00:00Z", night.getString("start"), "22:00 CET");
+        assertTrue(night.getBoolean("running"));
+        assertEquals(STORE_CLOCK.instant().toString(), night.getString("until"));
+        assertNull(night.getValue("mean_thermal_efficiency"), "no data, no efficiency");
+    }
+
+    @Test
     void shiftSummariesDownloadAsCsvWithAFileName() {
         HttpResponse<Buffer> r = get("/api/v1/units/unit3/shifts?from=2026-10-24T12:00:00Z&to=2026-10-25T05:00:00Z"
                 + "&format=csv");
