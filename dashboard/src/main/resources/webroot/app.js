@@ -662,6 +662,7 @@
     $('system-us').setAttribute('aria-pressed', String(name === 'US'));
     try { localStorage.setItem('steamtally.system', name); } catch (e) { /* private mode */ }
     renderAll();
+    if (state.view === 'trends' || state.view === 'shifts') HistoryViews.show(state.view, state.unitId);
   }
 
   // Loads the plant and the units; when anonymous viewing is off this fails until a login succeeds.

@@ -20,6 +20,10 @@ const HistoryViews = (() => {
     return e;
   }
   function clear(node) { while (node.firstChild) node.removeChild(node.firstChild); }
+  // Heat rate follows the page's unit system: kJ/kWh, or kBtu/kWh with 1 Btu_IT = 1.055 056 kJ
+  // (NIST SP 811, as in units.js). Efficiency, power and MWh are the same in both.
+  const KJ_PER_KBTU = 1055.056;
+  function us() { const b = document.getElementById('system-us'); return !!b && b.getAttribute('aria-pressed') === 'true'; }
   function css(name) { return getComputedStyle(document.documentElement).getPropertyValue(name).trim(); }
 
   async function getJson(path) {
@@ -107,7 +111,9 @@ const HistoryViews = (() => {
   function drawTrends(body) {
     const s = body.series;
     bandChart('chart-eta', s.thermal_efficiency, 100, 'Efficiency', '%', 2);
-    bandChart('chart-hr', s.heat_rate_kJ_per_kWh, 1, 'Heat rate', 'kJ/kWh', 0);
+    if (us()) bandChart('chart-hr', s.heat_rate_kJ_per_kWh, 1 / KJ_PER_KBTU, 'Heat rate', 'kBtu/kWh', 3);
+    else bandChart('chart-hr', s.heat_rate_kJ_per_kWh, 1, 'Heat rate', 'kJ/kWh', 0);
+    $('hr-unit').textContent = us() ? 'kBtu/kWh' : 'kJ/kWh';
     bandChart('chart-net', s.net_work_W, 1e-6, 'Net power', 'MW', 2);
 
     const c = s.closure_residual_W;
@@ -172,12 +178,17 @@ const HistoryViews = (() => {
     { key: 'efficiency_from_energy', label: 'Efficiency from energy, %', fmt: v => (100 * v).toFixed(2), dir: 1 },
     { key: 'mean_thermal_efficiency', label: 'Mean thermal efficiency, %', fmt: v => (100 * v).toFixed(2), dir: 1 },
     { key: 'worst_thermal_efficiency', label: 'Lowest thermal efficiency, %', fmt: v => (100 * v).toFixed(2), dir: 1 },
-    { key: 'mean_heat_rate_kJ_per_kWh', label: 'Mean heat rate, kJ/kWh', fmt: v => v.toFixed(0), dir: -1 },
-    { key: 'worst_heat_rate_kJ_per_kWh', label: 'Highest heat rate, kJ/kWh', fmt: v => v.toFixed(0), dir: -1 },
+    { key: 'mean_heat_rate_kJ_per_kWh', label: 'Mean heat rate', heatRate: true, dir: -1 },
+    { key: 'worst_heat_rate_kJ_per_kWh', label: 'Highest heat rate', heatRate: true, dir: -1 },
     { key: 'coverage', label: 'Time with data, %', fmt: v => (100 * v).toFixed(0), dir: 0 },
     { key: 'alarms_active_h', label: 'Alarms active, h', fmt: v => v.toFixed(2), dir: -1 },
     { key: 'closure_max_abs_z', label: 'Closure, largest |z|', fmt: v => v.toFixed(2), dir: -1 },
   ];
+  function label(m) { return m.heatRate ? m.label + (us() ? ', kBtu/kWh' : ', kJ/kWh') : m.label; }
+  function format(m, v) {
+    if (!m.heatRate) return m.fmt(v);
+    return us() ? (v / KJ_PER_KBTU).toFixed(3) : v.toFixed(0);
+  }
   function metric(shift, key) {
     if (key === 'alarms_active_h') return shift.alarms_active_s / 3600;
     if (key === 'closure_max_abs_z') return shift.closures.length ? Math.max(...shift.closures.map(c => c.max_abs_z)) : null;
@@ -255,24 +266,24 @@ const HistoryViews = (() => {
     const tbody = el('tbody');
     for (const m of METRICS) {
       const b = stats(baseShifts.map(s => metric(s, m.key)));
-      const row = el('tr', {}, el('th', { class: 'text', scope: 'row' }, m.label));
+      const row = el('tr', {}, el('th', { class: 'text', scope: 'row' }, label(m)));
       for (const s of review.shifts) {
         const v = metric(s, m.key);
         const td = el('td');
         if (v === null) {
           td.append(el('span', { class: 'nodata' }, 'no data'));
         } else {
-          td.append(m.fmt(v));
+          td.append(format(m, v));
           const dev = deviation(m, v, b);
           if (dev) {
             td.classList.add('dev-cell', 'dev-cell-' + dev);
             td.append(el('br'), el('span', { class: 'dev dev-' + dev }, (dev === WORSE ? '▼ WORSE' : '▲ BETTER')
-              + ' (' + (v - b.mean >= 0 ? '+' : '−') + m.fmt(Math.abs(v - b.mean)) + ')'));
+              + ' (' + (v - b.mean >= 0 ? '+' : '−') + format(m, Math.abs(v - b.mean)) + ')'));
           }
         }
         row.append(td);
       }
-      row.append(el('td', { class: 'baseline-col' }, b ? m.fmt(b.mean) + ' ± ' + m.fmt(b.sd) : 'no data'));
+      row.append(el('td', { class: 'baseline-col' }, b ? format(m, b.mean) + ' ± ' + format(m, b.sd) : 'no data'));
       tbody.append(row);
     }
     const sus = el('tr', {}, el('th', { class: 'text', scope: 'row' }, 'Suspect sensors (records flagged)'));
@@ -283,6 +294,38 @@ const HistoryViews = (() => {
     sus.append(el('td', { class: 'baseline-col' }, ''));
     tbody.append(sus);
     table.append(tbody);
+  }
+
+  // ------------------------------------------------------------------ alarm history
+  async function loadAlarmHistory() {
+    const table = $('alarm-history-table');
+    const msg = $('alarm-history-message');
+    const to = new Date();
+    const from = new Date(to.getTime() - 24 * 3600e3);
+    try {
+      const body = await getJson(unitPath('/alarms/history?from=' + from.toISOString() + '&to=' + to.toISOString()));
+      clear(table);
+      table.append(el('thead', {}, el('tr', {}, ...['Time (UTC)', 'Alarm', 'Event', 'State', 'Priority', 'By', 'Note']
+        .map(h => el('th', { class: 'text', scope: 'col' }, h)))));
+      const tbody = el('tbody');
+      for (const e of body.events.slice().reverse()) {
+        const kind = e.kind === 'transition' ? (e.active ? 'became active' : 'cleared') : e.kind;
+        tbody.append(el('tr', { class: 'history-' + e.kind },
+          el('td', { class: 'text' }, e.ts.replace('T', ' ').replace('Z', '')),
+          el('td', { class: 'text' }, e.alarm),
+          el('td', { class: 'text' }, el('strong', {}, kind.toUpperCase())),
+          el('td', { class: 'text' }, e.old_state.replace(/_/g, ' ') + ' → ' + e.new_state.replace(/_/g, ' ')),
+          el('td', { class: 'text' }, e.priority),
+          el('td', { class: 'text' }, e.user || '–'),
+          el('td', { class: 'text' }, e.note || '')));
+      }
+      if (!body.events.length) tbody.append(el('tr', {}, el('td', { colspan: '7', class: 'text' }, 'No alarm events in the last 24 h.')));
+      table.append(tbody);
+      msg.textContent = body.truncated ? 'Only the first ' + body.events.length + ' events of the range are shown.' : '';
+    } catch (e) {
+      clear(table);
+      msg.textContent = e.message;
+    }
   }
 
   // ------------------------------------------------------------------ wiring
@@ -301,6 +344,7 @@ const HistoryViews = (() => {
     if (!unitId) return;
     if (view === 'trends') loadTrends();
     if (view === 'shifts') loadShifts();
+    if (view === 'alarms') loadAlarmHistory();
   }
 
   return { init, show };

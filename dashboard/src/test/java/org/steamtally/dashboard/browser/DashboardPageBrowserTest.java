@@ -288,6 +288,12 @@ class DashboardPageBrowserTest {
         waiting().until(d -> text("#trends-range").contains("buckets of 120 s"));
         assertBanner();
         screenshot("trends-day");
+        // Heat rate follows the unit system: kBtu/kWh in US customary.
+        driver.findElement(By.id("system-us")).click();
+        waiting().until(d -> text("#hr-unit").equals("kBtu/kWh") && text("#trends-message").isEmpty()
+                && coloursOn("#chart-hr") > 20);
+        driver.findElement(By.id("system-si")).click();
+        waiting().until(d -> text("#hr-unit").equals("kJ/kWh"));
     }
 
     @Test
@@ -332,6 +338,11 @@ class DashboardPageBrowserTest {
     void acknowledgingNeedsALoginAndWorksAfterIt() throws IOException {
         driver.get(dash.baseUrl() + "/#alarms");
         waiting().until(d -> text("#alarm-table").contains(FernholmTestPlant.SCRIPT_TAG));
+        // The store's history of the suspect-sensor alarm: raised, acknowledged and shelved by the operator.
+        waiting().until(d -> text("#alarm-history-table").contains("SHELVE"));
+        String historyText = text("#alarm-history-table");
+        assertTrue(historyText.contains("ACKNOWLEDGE") && historyText.contains(TestDashboard.OPERATOR)
+                && historyText.contains("thermometer to be recalibrated, 4 h"), historyText);
         assertNoScriptRan();
         assertTrue(driver.findElements(By.cssSelector("button[data-action=ack]")).isEmpty(),
                 "no acknowledge button before login");
