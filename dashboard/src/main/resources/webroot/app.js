@@ -62,13 +62,13 @@
 
   // ------------------------------------------------------------------ views
   function showView(name) {
-    state.view = ['cycle', 'alarms', 'trends', 'plant'].includes(name) ? name : 'cycle';
+    state.view = ['cycle', 'alarms', 'trends', 'shifts', 'plant'].includes(name) ? name : 'cycle';
     for (const s of document.querySelectorAll('section.view')) s.hidden = s.id !== 'view-' + state.view;
     for (const a of document.querySelectorAll('#views a')) {
       if (a.dataset.view === state.view) a.setAttribute('aria-current', 'page'); else a.removeAttribute('aria-current');
     }
     if (state.view === 'alarms') loadAlarms();
-    if (state.view === 'trends') loadTrends('PT8H');
+    HistoryViews.show(state.view, state.unitId);
   }
 
   // ------------------------------------------------------------------ metrics
@@ -554,20 +554,6 @@
     loadAlarms();
   }
 
-  // ------------------------------------------------------------------ trends (need a store)
-  async function loadTrends(range) {
-    const to = new Date();
-    const ms = { PT1H: 3600e3, PT8H: 8 * 3600e3, P1D: 24 * 3600e3 }[range];
-    const from = new Date(to.getTime() - ms);
-    try {
-      await api('/api/v1/units/' + encodeURIComponent(state.unitId) + '/trends?series=thermal_efficiency,heat_rate_kJ_per_kWh,net_work_W,closure_residual_W'
-        + '&from=' + from.toISOString() + '&to=' + to.toISOString() + '&bucket=PT1M');
-      $('trends-message').textContent = '';
-    } catch (e) {
-      $('trends-message').textContent = e.message;
-    }
-  }
-
   // ------------------------------------------------------------------ plant
   function renderPlant() {
     if (!state.plant || !state.unitDesc) return;
@@ -668,6 +654,7 @@
     renderAll();
     openStream();
     loadAlarms();
+    HistoryViews.show(state.view, id);
   }
   function setSystem(name) {
     state.system = name;
@@ -675,6 +662,7 @@
     $('system-us').setAttribute('aria-pressed', String(name === 'US'));
     try { localStorage.setItem('steamtally.system', name); } catch (e) { /* private mode */ }
     renderAll();
+    if (state.view === 'trends' || state.view === 'shifts') HistoryViews.show(state.view, state.unitId);
   }
 
   // Loads the plant and the units; when anonymous viewing is off this fails until a login succeeds.
@@ -704,7 +692,7 @@
     $('logout-button').addEventListener('click', logout);
     $('system-si').addEventListener('click', () => setSystem('SI'));
     $('system-us').addEventListener('click', () => setSystem('US'));
-    for (const b of document.querySelectorAll('[data-range]')) b.addEventListener('click', () => loadTrends(b.dataset.range));
+    HistoryViews.init();
     window.addEventListener('hashchange', () => showView(location.hash.slice(1)));
     try { state.system = localStorage.getItem('steamtally.system') === 'US' ? 'US' : 'SI'; } catch (e) { /* default */ }
     try { state.session = await api('/api/v1/session'); } catch (e) { state.session = null; }

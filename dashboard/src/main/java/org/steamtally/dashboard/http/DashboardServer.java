@@ -17,6 +17,7 @@ import java.lang.System.Logger.Level;
 import org.steamtally.dashboard.alarm.AlarmActionException;
 import org.steamtally.dashboard.alarm.UnknownAlarmException;
 import org.steamtally.dashboard.security.LoginRateLimiter;
+import org.steamtally.dashboard.store.StoreQueryException;
 import org.steamtally.dashboard.security.Sessions;
 
 /**
@@ -81,7 +82,7 @@ public final class DashboardServer {
         var stream = new StreamResource(vertx, plant, sources.live(), sources.alarms(), sources.meters());
         var diagram = new DiagramResource(plant, sources.live());
         var plantResource = new PlantResource(plant);
-        var history = new HistoryResource(plant);
+        var history = new HistoryResource(vertx, plant, sources.history());
         var health = new HealthResource(sources.live());
         var metrics = new MetricsResource(sources.meters());
         Buffer openApi = resource("openapi.yaml");
@@ -114,6 +115,7 @@ public final class DashboardServer {
         r.get("/api/v1/units/:unit/stream").handler(access::viewer).handler(stream::open);
         r.get("/api/v1/units/:unit/ts-diagram").handler(access::viewer).handler(diagram::get);
         r.get("/api/v1/units/:unit/alarms").handler(access::viewer).handler(alarms::list);
+        r.get("/api/v1/units/:unit/alarms/history").handler(access::viewer).handler(history::alarmHistory);
         r.get("/api/v1/units/:unit/trends").handler(access::viewer).handler(history::trends);
         r.get("/api/v1/units/:unit/shifts").handler(access::viewer).handler(history::shifts);
         r.post("/api/v1/alarms/:id/acknowledge").handler(access::operator).handler(alarms::acknowledge);
@@ -122,6 +124,9 @@ public final class DashboardServer {
 
         r.route("/api/*").handler(ctx -> Responses.error(ctx, 404, "no API resource at " + ctx.request().method()
                 + " " + ctx.normalizedPath() + "; the OpenAPI document at /api/v1/openapi.yaml lists them"));
+        // Browser libraries from webjars on the classpath, under their versioned paths.
+        r.get("/webjars/*").handler(StaticHandler.create("META-INF/resources/webjars").setCachingEnabled(true)
+                .setMaxAgeSeconds(86_400).setDirectoryListing(false));
         r.route("/*").handler(StaticHandler.create("webroot").setIndexPage("index.html").setCachingEnabled(false)
                 .setDirectoryListing(false));
 
@@ -154,6 +159,10 @@ public final class DashboardServer {
             Responses.error(ctx, 404, e.getMessage());
         } else if (t instanceof AlarmActionException e) {
             Responses.error(ctx, 409, e.getMessage());
+        } else if (t instanceof StoreQueryException e) {
+            LOG.log(Level.WARNING, "store query for " + ctx.normalizedPath() + " failed: " + e.getMessage());
+            Responses.error(ctx, 503, "the result store did not answer this query; try again, and if it persists "
+                    + "the server log names the cause");
         } else if (t == null && ctx.statusCode() >= 400 && ctx.statusCode() < 500) {
             Responses.error(ctx, ctx.statusCode(), "the request was refused (" + ctx.statusCode() + ")");
         } else {

@@ -15,7 +15,10 @@ import org.steamtally.calc.cycle.UnitResult;
  */
 public interface ResultStore extends AutoCloseable {
 
-    /** Queues the points of one result record (states, components, cycle, closure). */
+    /**
+     * Queues the points of one result record (states, components, cycle, closure) and, when its
+     * global test was made, its reconciliation ({@link StoredReconciliation#of}).
+     */
     void writeResult(UnitResult result);
 
     /** Queues the reconciliation of one record. */
@@ -45,6 +48,29 @@ public interface ResultStore extends AutoCloseable {
 
     /** Alarm events of the unit in the range, in time order: transitions, acknowledgements, shelving. */
     List<StoredAlarmEvent> alarmHistory(String site, String unit, Instant from, Instant to);
+
+    /**
+     * Sensors that reconciliation flagged as suspect in the range, most often flagged first, then by
+     * largest test value. This default reads every reconciliation point of the range; adapters that
+     * can ask their store directly override it.
+     */
+    default List<SuspectSensor> suspects(String site, String unit, Instant from, Instant to) {
+        Map<String, long[]> count = new java.util.HashMap<>();
+        Map<String, Double> maxTest = new java.util.HashMap<>();
+        for (Point p : points(Measurement.RECONCILIATION, site, unit, from, to)) {
+            if (p.id() != null && !p.id().isEmpty() && Boolean.TRUE.equals(p.value("suspect"))) {
+                count.computeIfAbsent(p.id(), k -> new long[1])[0]++;
+                Object t = p.value("test_value");
+                double test = t instanceof Double d ? d : 0.0;
+                maxTest.merge(p.id(), test, Math::max);
+            }
+        }
+        return count.entrySet().stream()
+                .map(e -> new SuspectSensor(e.getKey(), e.getValue()[0], maxTest.get(e.getKey())))
+                .sorted(java.util.Comparator.comparingLong(SuspectSensor::suspectCount).reversed()
+                        .thenComparing(java.util.Comparator.comparingDouble(SuspectSensor::maxTestValue).reversed()))
+                .toList();
+    }
 
     /** Writes what is queued (to the store, or to the spool), syncs the spool and releases everything. */
     @Override

@@ -134,7 +134,10 @@ public final class SpooledStore implements ResultStore {
 
     @Override
     public void writeResult(UnitResult result) {
-        enqueue(ResultPoints.of(result));
+        // The record's reconciliation goes with it, so that a caller cannot store one without the other.
+        List<Point> points = new java.util.ArrayList<>(ResultPoints.of(result));
+        StoredReconciliation.of(result).ifPresent(rec -> points.addAll(ResultPoints.of(rec)));
+        enqueue(points);
     }
 
     @Override
@@ -398,6 +401,11 @@ public final class SpooledStore implements ResultStore {
     @Override
     public ShiftSummary shiftSummary(String site, String unit, Shift shift) {
         return ShiftSummaries.summarise(backend, clock, queries, site, unit, shift);
+    }
+
+    @Override
+    public List<SuspectSensor> suspects(String site, String unit, Instant from, Instant to) {
+        return backend.suspects(site, unit, from, to);
     }
 
     @Override

@@ -3,6 +3,10 @@ package org.steamtally.dashboard.store;
 import java.time.Instant;
 import java.util.List;
 import java.util.Objects;
+import java.util.Optional;
+import org.steamtally.calc.cycle.ReconciledSensor;
+import org.steamtally.calc.cycle.ReconciliationResult;
+import org.steamtally.calc.cycle.UnitResult;
 
 /**
  * The data-reconciliation part of one result record (VDI 2048) as the store keeps it, measurement
@@ -51,6 +55,32 @@ public record StoredReconciliation(Instant timestamp, String site, String unit, 
         }
         sensors = List.copyOf(sensors);
         timestamp = Instant.ofEpochMilli(timestamp.toEpochMilli());
+    }
+
+    /**
+     * The reconciliation of a result record as the store keeps it, when the global test was made
+     * (status {@code passed} or {@code failed}); empty otherwise, since a reconciliation that did not
+     * run, found nothing to check or did not converge has no χ² to keep. Of the sensors, those with a
+     * measured and a reconciled value, its uncertainty and an individual test value are kept: a
+     * quantity without a test value is not redundant, so its reconciled value is its measured one.
+     */
+    public static Optional<StoredReconciliation> of(UnitResult r) {
+        ReconciliationResult rec = r.reconciliation();
+        boolean tested = ReconciliationResult.PASSED.equals(rec.status())
+                || ReconciliationResult.FAILED.equals(rec.status());
+        if (!tested || rec.chi2Limit().isEmpty()) {
+            return Optional.empty();
+        }
+        List<Sensor> sensors = new java.util.ArrayList<>(rec.sensors().size());
+        for (ReconciledSensor s : rec.sensors()) {
+            if (s.measured().isPresent() && s.reconciled().isPresent() && s.sigmaReconciled().isPresent()
+                    && s.testValue().isPresent()) {
+                sensors.add(new Sensor(s.id(), s.measured().getAsDouble(), s.reconciled().getAsDouble(),
+                        s.sigmaReconciled().getAsDouble(), s.testValue().getAsDouble(), s.suspect()));
+            }
+        }
+        return Optional.of(new StoredReconciliation(r.timestamp(), r.site(), r.unit(), rec.chi2(),
+                rec.chi2Limit().getAsDouble(), rec.redundancy(), rec.passed(), sensors));
     }
 
     private static void finite(double v, String name, String where) {

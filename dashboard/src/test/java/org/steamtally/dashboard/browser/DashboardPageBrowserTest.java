@@ -11,7 +11,13 @@ import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
+import java.time.Clock;
 import java.time.Duration;
+import java.time.Instant;
+import java.time.ZoneId;
+import java.time.temporal.ChronoUnit;
+import java.util.Map;
+import java.util.function.UnaryOperator;
 import java.util.Comparator;
 import java.util.List;
 import java.util.stream.Stream;
@@ -23,6 +29,7 @@ import org.junit.jupiter.api.Order;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.TestMethodOrder;
 import org.openqa.selenium.By;
+import org.openqa.selenium.JavascriptExecutor;
 import org.openqa.selenium.NoAlertPresentException;
 import org.openqa.selenium.OutputType;
 import org.openqa.selenium.StaleElementReferenceException;
@@ -36,11 +43,15 @@ import org.openqa.selenium.support.ui.Select;
 import org.openqa.selenium.support.ui.WebDriverWait;
 import org.steamtally.dashboard.alarm.AlarmView;
 import org.steamtally.dashboard.fixture.FernholmTestPlant;
+import org.steamtally.dashboard.fixture.StoreHistory;
+import org.steamtally.dashboard.store.ShiftCalendar;
 import org.steamtally.dashboard.fixture.TestDashboard;
 
 /**
  * The page in a real headless Chromium (Debian's {@code chromium} and {@code chromium-driver}),
- * against a running dashboard with in-memory sources. Screenshots of each view are written to
+ * against a running dashboard with in-memory live sources and a real embedded store holding three
+ * days of results up to the present (the page's ranges are relative to the browser's own clock, so
+ * the history is placed around it). Screenshots of each view are written to
  * {@code target/screenshots/} for review. Without the browser the test is skipped, or fails when
  * {@code STEAMTALLY_REQUIRE_SERVICES=1}.
  */
@@ -56,6 +67,8 @@ class DashboardPageBrowserTest {
     private static TestDashboard dash;
     private static WebDriver driver;
     private static Path profile;
+    private static Path storeDir;
+    private static StoreHistory history;
 
     @BeforeAll
     static void start() throws IOException {
@@ -78,7 +91,18 @@ class DashboardPageBrowserTest {
                 "--user-data-dir=" + profile, "--window-size=1920,1500", "--force-device-scale-factor=1");
         ChromeDriverService service = new ChromeDriverService.Builder().usingDriverExecutable(CHROMEDRIVER.toFile())
                 .usingAnyFreePort().build();
-        dash = new TestDashboard();
+        storeDir = Files.createTempDirectory("steamtally-browser-store-");
+        Instant now = Instant.now().truncatedTo(ChronoUnit.MINUTES);
+        history = new StoreHistory(storeDir, Clock.systemUTC());
+        try {
+            history.fill(new FernholmTestPlant(), now.minus(Duration.ofDays(3)), now, Duration.ofMinutes(1),
+                    now.minus(Duration.ofMinutes(50)));
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            throw new IllegalStateException(e);
+        }
+        ShiftCalendar shifts = ShiftCalendar.threeShifts(ZoneId.of("Europe/Berlin"));
+        dash = new TestDashboard(UnaryOperator.identity(), s -> s.withStore(history.store, shifts));
         dash.publish(1.0);
         driver = new ChromeDriver(service, options);
         driver.get(dash.baseUrl() + "/#cycle");
@@ -92,9 +116,14 @@ class DashboardPageBrowserTest {
         if (dash != null) {
             dash.close();
         }
-        if (profile != null) {
-            try (Stream<Path> files = Files.walk(profile)) {
-                files.sorted(Comparator.reverseOrder()).forEach(p -> p.toFile().delete());
+        if (history != null) {
+            history.close();
+        }
+        for (Path dir : new Path[] {profile, storeDir}) {
+            if (dir != null) {
+                try (Stream<Path> files = Files.walk(dir)) {
+                    files.sorted(Comparator.reverseOrder()).forEach(p -> p.toFile().delete());
+                }
             }
         }
     }
@@ -219,12 +248,89 @@ class DashboardPageBrowserTest {
         screenshot("plant");
     }
 
+    /** Distinct colours among the canvas's pixels: a blank canvas has one, a drawn chart many. */
+    private static long coloursOn(String chartCss) {
+        Object n = ((JavascriptExecutor) driver).executeScript(
+                "const c = document.querySelector(arguments[0] + ' canvas'); if (!c) return 0;"
+                        + "const d = c.getContext('2d').getImageData(0, 0, c.width, c.height).data;"
+                        + "const seen = new Set(); for (let i = 0; i < d.length; i += 16) seen.add(d[i] << 16 | d[i + 1] << 8 | d[i + 2]);"
+                        + "return seen.size;", chartCss);
+        return ((Number) n).longValue();
+    }
+
+    private static void assertBanner() {
+        WebElement banner = driver.findElement(By.id("advisory"));
+        assertTrue(banner.isDisplayed());
+        assertTrue(banner.getText().contains("not a protection or control system"), banner.getText());
+    }
+
     @Test
     @Order(7)
-    void trendsSayThatTheyNeedAStore() throws IOException {
+    void trendsDrawChartsFromTheStoreForEachRange() throws IOException {
         driver.get(dash.baseUrl() + "/#trends");
-        waiting().until(d -> text("#trends-message").contains("no result store"));
-        screenshot("trends");
+        waiting().until(d -> text("#trends-message").isEmpty() && coloursOn("#chart-eta") > 20
+                && coloursOn("#chart-closure") > 20);
+        assertTrue(text("#trends-range").contains("buckets of"), text("#trends-range"));
+        for (String chart : List.of("#chart-hr", "#chart-net", "#chart-recon")) {
+            assertTrue(coloursOn(chart) > 20, chart + " is drawn");
+        }
+        // The suspect thermometer's tag is markup; its legend entry shows it as text.
+        waiting().until(d -> text("#chart-recon .u-legend").contains(FernholmTestPlant.SCRIPT_TAG));
+        assertNoScriptRan();
+        assertBanner();
+        screenshot("trends-shift");
+        driver.findElement(By.cssSelector("#trend-range [data-range=hour]")).click();
+        waiting().until(d -> "true".equals(d.findElement(By.cssSelector("#trend-range [data-range=hour]"))
+                .getAttribute("aria-pressed")) && text("#trends-range").contains("buckets of 5 s"));
+        waiting().until(d -> coloursOn("#chart-recon") > 20);
+        screenshot("trends-hour");
+        driver.findElement(By.cssSelector("#trend-range [data-range=day]")).click();
+        waiting().until(d -> text("#trends-range").contains("buckets of 120 s"));
+        assertBanner();
+        screenshot("trends-day");
+        // Heat rate follows the unit system: kBtu/kWh in US customary.
+        driver.findElement(By.id("system-us")).click();
+        waiting().until(d -> text("#hr-unit").equals("kBtu/kWh") && text("#trends-message").isEmpty()
+                && coloursOn("#chart-hr") > 20);
+        driver.findElement(By.id("system-si")).click();
+        waiting().until(d -> text("#hr-unit").equals("kJ/kWh"));
+    }
+
+    @Test
+    @Order(7)
+    void theShiftReviewSetsShiftsBesideABaselineMarksDeviationsInWordsAndPrints() throws IOException {
+        driver.get(dash.baseUrl() + "/#shifts");
+        waiting().until(d -> !text("#shift-table").isEmpty());
+        // Review: yesterday and today; baseline: the day before (the store holds three days).
+        ((JavascriptExecutor) driver).executeScript(
+                "const d = n => { const t = new Date(); t.setDate(t.getDate() - n);"
+                        + " return t.getFullYear() + '-' + String(t.getMonth() + 1).padStart(2, '0') + '-'"
+                        + " + String(t.getDate()).padStart(2, '0'); };"
+                        + "document.getElementById('review-from').value = d(1);"
+                        + "document.getElementById('review-to').value = d(0);"
+                        + "document.getElementById('base-from').value = d(2);"
+                        + "document.getElementById('base-to').value = d(2);");
+        driver.findElement(By.id("shift-apply")).click();
+        waiting().until(d -> text("#shift-table").contains("Baseline") && text("#shift-table").contains("shifts with data")
+                && !text("#shift-table thead th.baseline-col").contains(" 0 shifts"));
+        assertTrue(text("#shift-table").contains("Alarms active, h"));
+        // The shift with the alarm stands out from an alarm-free baseline, in words and not only by colour.
+        assertTrue(text("#shift-table").contains("▼ WORSE"), text("#shift-table"));
+        assertTrue(text("#shift-table").contains(FernholmTestPlant.SCRIPT_TAG), "suspect tag shown as text");
+        assertNoScriptRan();
+        String csv = driver.findElement(By.id("shift-csv")).getAttribute("href");
+        assertTrue(csv.contains("/api/v1/units/unit3/shifts?") && csv.endsWith("&format=csv"), csv);
+        assertBanner();
+        screenshot("shifts");
+        ChromeDriver chrome = (ChromeDriver) driver;
+        chrome.executeCdpCommand("Emulation.setEmulatedMedia", Map.of("media", "print"));
+        try {
+            assertFalse(driver.findElement(By.id("shift-form")).isDisplayed(), "the form is not printed");
+            assertBanner();
+            screenshot("shifts-print");
+        } finally {
+            chrome.executeCdpCommand("Emulation.setEmulatedMedia", Map.of("media", ""));
+        }
     }
 
     @Test
@@ -232,6 +338,11 @@ class DashboardPageBrowserTest {
     void acknowledgingNeedsALoginAndWorksAfterIt() throws IOException {
         driver.get(dash.baseUrl() + "/#alarms");
         waiting().until(d -> text("#alarm-table").contains(FernholmTestPlant.SCRIPT_TAG));
+        // The store's history of the suspect-sensor alarm: raised, acknowledged and shelved by the operator.
+        waiting().until(d -> text("#alarm-history-table").contains("SHELVE"));
+        String historyText = text("#alarm-history-table");
+        assertTrue(historyText.contains("ACKNOWLEDGE") && historyText.contains(TestDashboard.OPERATOR)
+                && historyText.contains("thermometer to be recalibrated, 4 h"), historyText);
         assertNoScriptRan();
         assertTrue(driver.findElements(By.cssSelector("button[data-action=ack]")).isEmpty(),
                 "no acknowledge button before login");

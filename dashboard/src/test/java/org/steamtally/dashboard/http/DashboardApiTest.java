@@ -180,6 +180,8 @@ class DashboardApiTest {
                 + "&from=2026-12-01T00:00:00Z&to=2026-12-01T08:00:00Z&bucket=PT1M").send()), 501, "no result store");
         assertJsonError(await(get("/api/v1/units/unit3/shifts?from=2026-11-01T00:00:00Z&to=2026-12-01T00:00:00Z"
                 + "&format=csv").send()), 501, "shift summaries");
+        assertJsonError(await(get("/api/v1/units/unit3/alarms/history?from=2026-11-01T00:00:00Z"
+                + "&to=2026-12-01T00:00:00Z").send()), 501, "alarm history");
     }
 
     @Test
@@ -360,7 +362,8 @@ class DashboardApiTest {
         for (String path : List.of("/api/v1/session:", "/api/v1/plant:", "/api/v1/units:", "/api/v1/units/{unit}/live:",
                 "/api/v1/units/{unit}/stream:", "/api/v1/units/{unit}/ts-diagram:", "/api/v1/units/{unit}/alarms:",
                 "/api/v1/alarms/{id}/acknowledge:", "/api/v1/alarms/{id}/shelve:", "/api/v1/alarms/{id}/unshelve:",
-                "/api/v1/units/{unit}/trends:", "/api/v1/units/{unit}/shifts:", "/health:", "/health/live:",
+                "/api/v1/units/{unit}/trends:", "/api/v1/units/{unit}/shifts:", "/api/v1/units/{unit}/alarms/history:",
+                "/health:", "/health/live:",
                 "/health/ready:", "/metrics:")) {
             assertTrue(doc.contains("\n  " + path + "\n"), "documented: " + path);
         }

@@ -90,6 +90,19 @@ abstract class ResultStoreContractTest {
     }
 
     @Test
+    void theReconciliationOfAResultRecordIsStoredWithItAndReadBack() throws Exception {
+        UnitResult r = StoreFixtures.reconciledRecord(T0);
+        store.writeResult(r);
+        drain();
+        StoredReconciliation expected = StoredReconciliation.of(r).orElseThrow();
+        assertEquals(2, expected.sensors().size(), "the sensor without a test value is not kept");
+        assertEquals(of(ResultPoints.of(expected), Measurement.RECONCILIATION),
+                store.points(Measurement.RECONCILIATION, SITE, UNIT, T0, T0.plusMillis(1)));
+        assertEquals(List.of(new SuspectSensor("FT-101", 1, 3.9)),
+                store.backend().suspects(SITE, UNIT, T0, T0.plusMillis(1)));
+    }
+
+    @Test
     void reconciliationAlarmEventsAndReadingsAreReadBackAsWritten() throws Exception {
         StoredReconciliation rec = StoreFixtures.reconciliation(T0, true, 3.4, false, 0.2);
         StoredAlarmEvent shelve = StoreFixtures.alarm(T0, "closure_cycle", "shelve", "unacknowledged", "shelved",

@@ -7,7 +7,11 @@ import java.util.OptionalDouble;
 import org.steamtally.calc.cycle.ClosureResult;
 import org.steamtally.calc.cycle.ComponentResult;
 import org.steamtally.calc.cycle.CycleResult;
+import org.steamtally.calc.cycle.MetricsBasis;
 import org.steamtally.calc.cycle.Phase;
+import org.steamtally.calc.cycle.ReconciledSensor;
+import org.steamtally.calc.cycle.ReconciliationResult;
+import org.steamtally.calc.cycle.Suspect;
 import org.steamtally.calc.cycle.StateResult;
 import org.steamtally.calc.cycle.UnitResult;
 
@@ -58,6 +62,25 @@ final class StoreFixtures {
         CycleResult cycle = new CycleResult(of(heatAddedW), none(), none(), none(), of(netWorkW),
                 of(netWorkW / heatAddedW), none(), of(3600.0 * heatAddedW / netWorkW), none(), none());
         return new UnitResult(ts, SITE, UNIT, List.of(), List.of(), cycle, List.of());
+    }
+
+    /**
+     * A full record whose reconciliation failed the global test and names {@code FT-101} as suspect;
+     * {@code generator.efficiency} has no test value (not redundant).
+     */
+    static UnitResult reconciledRecord(Instant ts) {
+        UnitResult r = record(ts, 1);
+        ReconciliationResult rec = new ReconciliationResult(ReconciliationResult.FAILED, 18.2, of(11.07), 5, 0.95,
+                1.959963984540054, 3, Optional.empty(), List.of(
+                        new ReconciledSensor("FT-101", "sensor", "kg/s", of(150.9), of(0.75), of(149.8), of(0.4),
+                                of(3.9), "redundant", true),
+                        new ReconciledSensor("TT-202", "sensor", "K", of(811.3), of(0.5), of(811.0), of(0.3),
+                                of(0.4), "redundant", false),
+                        new ReconciledSensor("generator.efficiency", "constant", "1", of(0.985), of(0.002),
+                                of(0.985), of(0.002), none(), "just_determined", false)),
+                List.of(), List.of(new Suspect(1, "FT-101", "kg/s", List.of("FT-101"), 3.9, of(1.1), of(0.3), true)));
+        return new UnitResult(r.timestamp(), r.site(), r.unit(), r.states(), r.components(), r.cycle(), r.closure(),
+                rec, MetricsBasis.RAW, r.cycle());
     }
 
     static StoredReconciliation reconciliation(Instant ts, boolean flowSuspect, double flowTest, boolean tempSuspect,
