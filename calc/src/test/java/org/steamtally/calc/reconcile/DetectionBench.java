@@ -1,0 +1,342 @@
+package org.steamtally.calc.reconcile;
+
+import java.time.Duration;
+import java.time.Instant;
+import java.time.InstantSource;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import java.util.Locale;
+import java.util.Optional;
+import java.util.OptionalDouble;
+import org.steamtally.calc.alarm.AlarmEngine;
+import org.steamtally.calc.alarm.AlarmEvent;
+import org.steamtally.calc.alarm.AlarmKind;
+import org.steamtally.calc.alarm.AlarmSettings;
+import org.steamtally.calc.alarm.AlarmStimulus;
+import org.steamtally.calc.alarm.ReconciliationInput;
+import org.steamtally.calc.cycle.ReconciledSensor;
+import org.steamtally.calc.cycle.Snapshot;
+import org.steamtally.calc.cycle.Suspect;
+import org.steamtally.calc.cycle.UnitResult;
+import org.steamtally.calc.plant.UnitDescription;
+import org.steamtally.calc.sim.DesignPoint;
+import org.steamtally.calc.sim.Fault;
+import org.steamtally.calc.sim.SimulatedSample;
+import org.steamtally.calc.sim.Simulator;
+import org.steamtally.calc.sim.TruthModel;
+
+/**
+ * Monte Carlo evaluation of bad-sensor detection on the regenerative example (fernholm unit3): the
+ * simulator runs at 1 s steps on an injected clock, every snapshot goes through
+ * {@link ReconcilingEvaluator} and the {@link AlarmEngine} with its default settings, and each fault
+ * kind is injected on each redundant sensor at each size. See docs/DETECTION.md for the method and
+ * the figures; run with
+ *
+ * <pre>
+ * java -cp calc/target/classes:calc/target/test-classes org.steamtally.calc.reconcile.DetectionBench \
+ *     [trials per sensor and size] [fault-free hours] [seed]
+ * </pre>
+ *
+ * Not a unit test: a full run takes minutes. {@code DetectionMonteCarloTest} keeps a small
+ * fixed-seed version with asserted outcomes.
+ */
+public final class DetectionBench {
+
+    /** Time zero of every run: 06:00 UTC, so the cooling-water daily cycle is in its rising part. */
+    static final Instant T0 = Instant.parse("2026-12-02T06:00:00Z");
+    /** Fault-free seconds before the fault starts, so that every alarm starts from a settled state. */
+    static final int LEAD_S = 20;
+    /** Seconds after the fault's start that a trial watches. */
+    static final int WATCH_S = 120;
+    /** The detection target's time limit. */
+    static final int TARGET_S = 60;
+    /** Spike probability per reading: one reading in ten jumps. */
+    static final double SPIKE_PROBABILITY = 0.1;
+
+    /** The fault kinds, with how a size k (in σ of the sensor) becomes a fault. */
+    enum Kind {
+        BIAS(true), DRIFT(true), STUCK(false), SPIKES(true), NOISE(true), DROPOUT(false);
+
+        final boolean sized;
+
+        Kind(boolean sized) {
+            this.sized = sized;
+        }
+
+        String label() {
+            return name().toLowerCase(Locale.ROOT);
+        }
+
+        /**
+         * The fault of size k on a sensor of standard uncertainty sigma: bias k σ; a drift that reaches
+         * k σ after {@link #TARGET_S}; spikes of k σ; noise multiplied by k; stuck and dropout have no size.
+         */
+        Fault fault(String sensor, Instant start, double k, double sigma) {
+            Duration d = Duration.ofSeconds(WATCH_S + 1);
+            return switch (this) {
+                case BIAS -> new Fault.Bias(sensor, start, d, k * sigma);
+                case DRIFT -> new Fault.Drift(sensor, start, d, k * sigma / TARGET_S);
+                case STUCK -> new Fault.Stuck(sensor, start, d, OptionalDouble.empty());
+                case SPIKES -> new Fault.Spikes(sensor, start, d, k * sigma, SPIKE_PROBABILITY);
+                case NOISE -> new Fault.NoiseIncrease(sensor, start, d, k);
+                case DROPOUT -> new Fault.Dropout(sensor, start, d);
+            };
+        }
+    }
+
+    /** What one trial saw. */
+    record Trial(boolean detected, double secondsToDetect, boolean namedRight, boolean named) {
+    }
+
+    /** The outcome of one fault kind at one size, over all sensors and trials. */
+    record Row(Kind kind, double size, int trials, int detected, int detectedWithinTarget, double medianS, double p95S,
+               int named, int namedRight) {
+
+        double detectionRate() {
+            return (double) detected / trials;
+        }
+
+        double withinTargetRate() {
+            return (double) detectedWithinTarget / trials;
+        }
+
+        /** Right sensor named first, over the trials in which any sensor was named. */
+        double namedRightRate() {
+            return named == 0 ? 0.0 : (double) namedRight / named;
+        }
+
+        /** Right sensor named first, over all trials (a trial that names nobody counts as wrong). */
+        double namedRightOfAll() {
+            return (double) namedRight / trials;
+        }
+    }
+
+    /** False alarms over a fault-free run. */
+    record FalseAlarms(double hours, int energyBalance, int suspect, int other) {
+
+        double energyBalancePer24h() {
+            return energyBalance * 24.0 / hours;
+        }
+
+        double suspectPer24h() {
+            return suspect * 24.0 / hours;
+        }
+    }
+
+    private final UnitDescription unit;
+    private final TruthModel truth;
+    private final ReconcilingEvaluator evaluator;
+    private final List<String> redundant;
+
+    DetectionBench() {
+        unit = RegenerativeExample.unit();
+        truth = TruthModel.of(unit, designPoint());
+        evaluator = ReconcilingEvaluator.compile("fernholm", unit);
+        UnitResult clean = evaluator.evaluate(Simulator.builder(truth).noiseFactor(0.0).build().step(T0).snapshot());
+        redundant = clean.reconciliation().sensors().stream()
+                .filter(s -> s.kind().equals("sensor") && s.redundancy().equals("redundant"))
+                .map(ReconciledSensor::id).toList();
+    }
+
+    /** The redundant sensors of the example: those whose individual test can be made. */
+    List<String> redundantSensors() {
+        return redundant;
+    }
+
+    /**
+     * The design point of regenerative.yaml at full load (125 kg/s main steam), the same figures as
+     * deploy's ExampleDesignPoints.
+     */
+    static DesignPoint designPoint() {
+        double c = 273.15;
+        return DesignPoint.builder()
+                .flow("main_steam", 125.0)
+                .value("PT-101", 12.5e6).value("TT-101", 540 + c)
+                .value("PT-111", 4.2e6).value("TT-111", 395 + c)
+                .value("PT-121", 2.8e6).value("TT-121", 345 + c)
+                .value("PT-131", 2.6e6).value("TT-131", 540 + c)
+                .value("PT-141", 0.9e6).value("TT-141", 400 + c)
+                .value("PT-151", 250e3).value("TT-151", 250 + c)
+                .value("PT-301", 8.0e3).value("PT-302", 8.0e3)
+                .value("PT-311", 1.6e6)
+                .value("PT-321", 1.5e6).value("TT-321", 122 + c)
+                .value("PT-331", 240e3)
+                .value("PT-341", 1.6e6)
+                .value("PT-401", 0.85e6)
+                .value("PT-411", 15.0e6)
+                .value("PT-421", 14.6e6).value("TT-421", 245 + c)
+                .value("PT-431", 4.0e6)
+                .value("FT-501", 5000.0).value("TT-501", 18 + c)
+                .flowMeter("FT-421", "feedwater")
+                .isentropicEfficiency("lp_turbine", 0.88)
+                .isentropicEfficiency("condensate_pump", 0.75)
+                .isentropicEfficiency("drain_pump", 0.70)
+                .isentropicEfficiency("feed_pump", 0.80)
+                .build();
+    }
+
+    /** A clock the harness moves: one second of plant time per step, no wall clock. */
+    private static final class StepClock implements InstantSource {
+        Instant now = T0;
+
+        @Override
+        public Instant instant() {
+            return now;
+        }
+    }
+
+    /** One trial: the fault on the sensor from {@link #LEAD_S}, watched for {@link #WATCH_S}. */
+    Trial trial(Kind kind, String sensor, double k, long seed) {
+        Instant start = T0.plusSeconds(LEAD_S);
+        Simulator probe = Simulator.builder(truth).build();
+        Simulator sim = Simulator.builder(truth).seed(seed)
+                .fault(kind.fault(sensor, start, k, probe.sigmaOf(sensor))).build();
+        StepClock clock = new StepClock();
+        AlarmEngine alarms = new AlarmEngine(unit, AlarmSettings.DEFAULTS, clock);
+        boolean detected = false;
+        double seconds = Double.NaN;
+        Boolean right = null;
+        for (int s = 0; s <= LEAD_S + WATCH_S && right == null; s++) {
+            clock.now = T0.plusSeconds(s);
+            SimulatedSample sample = sim.step(clock.now);
+            UnitResult result = evaluator.evaluate(sample.snapshot());
+            List<AlarmEvent> events = alarms.evaluate(sample.snapshot(), result,
+                    ReconciliationInput.from(result.reconciliation()));
+            if (s < LEAD_S) {
+                continue;
+            }
+            for (AlarmEvent e : events) {
+                if (e.stimulus() != AlarmStimulus.CONDITION_ACTIVE || e.kind() == AlarmKind.CALCULATION_INVALID) {
+                    continue;
+                }
+                if (!detected) {
+                    detected = true;
+                    seconds = s - LEAD_S;
+                }
+                Optional<String> named = namedSensor(e);
+                if (named.isPresent() && right == null) {
+                    right = named.get().equals(sensor) || equivalents(result, named.get()).contains(sensor);
+                }
+            }
+        }
+        return new Trial(detected, seconds, Boolean.TRUE.equals(right), right != null);
+    }
+
+    /** The sensor an alarm names: suspect, stale and out-of-range alarms name one; the balance alarms none. */
+    static Optional<String> namedSensor(AlarmEvent e) {
+        return switch (e.kind()) {
+            case SUSPECT_SENSOR, STALE_SENSOR, OUT_OF_RANGE ->
+                    Optional.of(e.alarmId().substring(e.kind().idPrefix().length()));
+            default -> Optional.empty();
+        };
+    }
+
+    /** The equivalence set the reconciliation gave with the named suspect, itself included. */
+    static List<String> equivalents(UnitResult result, String sensor) {
+        for (Suspect s : result.reconciliation().suspects()) {
+            if (s.id().equals(sensor)) {
+                return s.equivalenceSet();
+            }
+        }
+        return List.of(sensor);
+    }
+
+    /** Every redundant sensor, {@code trials} seeds each. */
+    Row row(Kind kind, double k, int trials, long seed) {
+        List<Double> times = new ArrayList<>();
+        int n = 0;
+        int within = 0;
+        int named = 0;
+        int right = 0;
+        for (String sensor : redundant) {
+            for (int t = 0; t < trials; t++) {
+                Trial r = trial(kind, sensor, k, seed + 1_000_003L * t + sensor.hashCode());
+                n++;
+                if (r.detected()) {
+                    times.add(r.secondsToDetect());
+                    if (r.secondsToDetect() <= TARGET_S) {
+                        within++;
+                    }
+                }
+                named += r.named() ? 1 : 0;
+                right += r.namedRight() ? 1 : 0;
+            }
+        }
+        double[] sorted = times.stream().mapToDouble(Double::doubleValue).sorted().toArray();
+        return new Row(kind, k, n, sorted.length, within, quantile(sorted, 0.5), quantile(sorted, 0.95), named, right);
+    }
+
+    /** Empirical quantile (nearest rank); NaN for no data, shown as "—". */
+    static double quantile(double[] sorted, double p) {
+        if (sorted.length == 0) {
+            return Double.NaN;
+        }
+        int rank = (int) Math.ceil(p * sorted.length);
+        return sorted[Math.max(0, rank - 1)];
+    }
+
+    /** A fault-free run of the given length: the alarms that go active are all false. */
+    FalseAlarms falseAlarms(double hours, long seed) {
+        Simulator sim = Simulator.builder(truth).seed(seed).build();
+        StepClock clock = new StepClock();
+        AlarmEngine alarms = new AlarmEngine(unit, AlarmSettings.DEFAULTS, clock);
+        int balance = 0;
+        int suspect = 0;
+        int other = 0;
+        long steps = Math.round(hours * 3600.0);
+        for (long s = 0; s < steps; s++) {
+            clock.now = T0.plusSeconds(s);
+            SimulatedSample sample = sim.step(clock.now);
+            UnitResult result = evaluator.evaluate(sample.snapshot());
+            for (AlarmEvent e : alarms.evaluate(sample.snapshot(), result,
+                    ReconciliationInput.from(result.reconciliation()))) {
+                if (e.stimulus() != AlarmStimulus.CONDITION_ACTIVE) {
+                    continue;
+                }
+                switch (e.kind()) {
+                    case CLOSURE, GLOBAL_TEST -> balance++;
+                    case SUSPECT_SENSOR -> suspect++;
+                    default -> other++;
+                }
+            }
+        }
+        return new FalseAlarms(hours, balance, suspect, other);
+    }
+
+    static final double[] SIZES = {2.0, 3.0, 5.0};
+
+    public static void main(String[] args) {
+        int trials = args.length > 0 ? Integer.parseInt(args[0]) : 10;
+        double hours = args.length > 1 ? Double.parseDouble(args[1]) : 24.0;
+        long seed = args.length > 2 ? Long.parseLong(args[2]) : 20261202L;
+        long began = System.nanoTime();
+        DetectionBench bench = new DetectionBench();
+        System.out.println("redundant sensors (" + bench.redundant.size() + "): " + bench.redundant);
+        System.out.println("| fault | size | trials | detected | within 60 s | median s | p95 s | named | right first (of named) | right first (of all) |");
+        System.out.println("| --- | --- | --- | --- | --- | --- | --- | --- | --- | --- |");
+        for (Kind kind : Kind.values()) {
+            for (double k : kind.sized ? SIZES : new double[] {Double.NaN}) {
+                Row r = bench.row(kind, kind.sized ? k : 0.0, trials, seed);
+                System.out.println(format(r));
+            }
+        }
+        FalseAlarms fa = bench.falseAlarms(hours, seed);
+        System.out.printf(Locale.ROOT, "fault-free %.1f h: %d energy-balance alarms (%.2f per 24 h), %d suspect alarms"
+                + " (%.2f per 24 h), %d others%n", fa.hours(), fa.energyBalance(), fa.energyBalancePer24h(), fa.suspect(),
+                fa.suspectPer24h(), fa.other());
+        System.out.printf(Locale.ROOT, "wall time %.0f s%n", (System.nanoTime() - began) / 1e9);
+    }
+
+    static String format(Row r) {
+        String size = r.kind().sized ? (r.kind() == Kind.NOISE ? "×" + (int) r.size() : (int) r.size() + "σ") : "n/a";
+        return String.format(Locale.ROOT, "| %s | %s | %d | %.1f %% | %.1f %% | %s | %s | %.1f %% | %.1f %% | %.1f %% |",
+                r.kind().label(), size, r.trials(), 100 * r.detectionRate(), 100 * r.withinTargetRate(),
+                seconds(r.medianS()), seconds(r.p95S()), 100.0 * r.named() / r.trials(), 100 * r.namedRightRate(),
+                100 * r.namedRightOfAll());
+    }
+
+    private static String seconds(double s) {
+        return Double.isNaN(s) ? "—" : String.format(Locale.ROOT, "%.0f", s);
+    }
+}
