@@ -5,10 +5,14 @@ import java.time.Instant;
 import java.time.InstantSource;
 import java.util.ArrayList;
 import java.util.Arrays;
+import java.util.EnumMap;
+import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Map;
 import java.util.Locale;
 import java.util.Optional;
 import java.util.OptionalDouble;
+import org.steamtally.calc.alarm.AlarmDefinition;
 import org.steamtally.calc.alarm.AlarmEngine;
 import org.steamtally.calc.alarm.AlarmEvent;
 import org.steamtally.calc.alarm.AlarmKind;
@@ -126,17 +130,58 @@ public final class DetectionBench {
 
     private final UnitDescription unit;
     private final TruthModel truth;
-    private final ReconcilingEvaluator evaluator;
+    private final WindowMeanEvaluator evaluator;
+    private final AlarmSettings settings;
+    private final int lead;
     private final List<String> redundant;
+    private final Map<String, Double> checkedShare = new LinkedHashMap<>();
 
-    DetectionBench() {
+    /**
+     * @param window   snapshots averaged before reconciliation; 1 is the per-snapshot evaluation
+     * @param settings the alarm engine's settings
+     */
+    DetectionBench(int window, AlarmSettings settings) {
         unit = RegenerativeExample.unit();
         truth = TruthModel.of(unit, designPoint());
-        evaluator = ReconcilingEvaluator.compile("fernholm", unit);
-        UnitResult clean = evaluator.evaluate(Simulator.builder(truth).noiseFactor(0.0).build().step(T0).snapshot());
-        redundant = clean.reconciliation().sensors().stream()
-                .filter(s -> s.kind().equals("sensor") && s.redundancy().equals("redundant"))
-                .map(ReconciledSensor::id).toList();
+        evaluator = WindowMeanEvaluator.compile("fernholm", unit, window);
+        this.settings = settings;
+        // the window is full, and every alarm settled, before the fault starts
+        lead = window + LEAD_S;
+        UnitResult clean = ReconcilingEvaluator.compile("fernholm", unit)
+                .evaluate(Simulator.builder(truth).noiseFactor(0.0).build().step(T0).snapshot());
+        List<String> ids = new ArrayList<>();
+        for (ReconciledSensor s : clean.reconciliation().sensors()) {
+            if (s.kind().equals("sensor") && s.redundancy().equals("redundant")) {
+                ids.add(s.id());
+                double u = s.sigmaMeasured().orElseThrow();
+                double ur = s.sigmaReconciled().orElseThrow();
+                checkedShare.put(s.id(), Math.sqrt(Math.max(0.0, 1.0 - ur * ur / (u * u))));
+            }
+        }
+        redundant = List.copyOf(ids);
+    }
+
+    /** Per redundant sensor, ρ = σ(v)/u: the share of its uncertainty the balances check. */
+    Map<String, Double> checkedShare() {
+        return checkedShare;
+    }
+
+    /**
+     * The alarm settings for window-mean results: limits raised so that the strongly correlated
+     * successive means do not cross them by chance (docs/DETECTION.md), delays as the defaults.
+     */
+    static AlarmSettings windowSettings(double closureLimit, double globalFactor, double suspectLimit) {
+        EnumMap<AlarmKind, AlarmDefinition> kinds = AlarmSettings.defaultKinds();
+        AlarmDefinition c = AlarmSettings.CLOSURE_DEFAULT;
+        AlarmDefinition g = AlarmSettings.GLOBAL_TEST_DEFAULT;
+        AlarmDefinition s = AlarmSettings.SUSPECT_DEFAULT;
+        kinds.put(AlarmKind.CLOSURE, new AlarmDefinition(c.enabled(), c.priority(), c.onDelay(), c.offDelay(),
+                closureLimit, c.deadband()));
+        kinds.put(AlarmKind.GLOBAL_TEST, new AlarmDefinition(g.enabled(), g.priority(), g.onDelay(), g.offDelay(),
+                globalFactor, g.deadband()));
+        kinds.put(AlarmKind.SUSPECT_SENSOR, new AlarmDefinition(s.enabled(), s.priority(), s.onDelay(), s.offDelay(),
+                suspectLimit, s.deadband()));
+        return new AlarmSettings(kinds, Map.of(), AlarmSettings.MAX_SHELVE_DEFAULT);
     }
 
     /** The redundant sensors of the example: those whose individual test can be made. */
@@ -186,24 +231,25 @@ public final class DetectionBench {
         }
     }
 
-    /** One trial: the fault on the sensor from {@link #LEAD_S}, watched for {@link #WATCH_S}. */
+    /** One trial: the fault on the sensor once the window is full and {@link #LEAD_S} more have passed, watched for {@link #WATCH_S}. */
     Trial trial(Kind kind, String sensor, double k, long seed) {
-        Instant start = T0.plusSeconds(LEAD_S);
+        Instant start = T0.plusSeconds(lead);
         Simulator probe = Simulator.builder(truth).build();
         Simulator sim = Simulator.builder(truth).seed(seed)
                 .fault(kind.fault(sensor, start, k, probe.sigmaOf(sensor))).build();
         StepClock clock = new StepClock();
-        AlarmEngine alarms = new AlarmEngine(unit, AlarmSettings.DEFAULTS, clock);
+        AlarmEngine alarms = new AlarmEngine(unit, settings, clock);
+        evaluator.clear();
         boolean detected = false;
         double seconds = Double.NaN;
         Boolean right = null;
-        for (int s = 0; s <= LEAD_S + WATCH_S && right == null; s++) {
+        for (int s = 0; s <= lead + WATCH_S && right == null; s++) {
             clock.now = T0.plusSeconds(s);
             SimulatedSample sample = sim.step(clock.now);
             UnitResult result = evaluator.evaluate(sample.snapshot());
             List<AlarmEvent> events = alarms.evaluate(sample.snapshot(), result,
                     ReconciliationInput.from(result.reconciliation()));
-            if (s < LEAD_S) {
+            if (s < lead) {
                 continue;
             }
             for (AlarmEvent e : events) {
@@ -212,7 +258,7 @@ public final class DetectionBench {
                 }
                 if (!detected) {
                     detected = true;
-                    seconds = s - LEAD_S;
+                    seconds = s - lead;
                 }
                 Optional<String> named = namedSensor(e);
                 if (named.isPresent() && right == null) {
@@ -242,14 +288,30 @@ public final class DetectionBench {
         return List.of(sensor);
     }
 
+    /**
+     * The share ρ above which a sensor counts as well checked: a 3σ bias then has a mean test value of
+     * at least 3 · 0.3 · √50 ≈ 6.4 in a full 50 s window, above the window's suspect limit with room for noise.
+     */
+    static final double WELL_CHECKED = 0.3;
+
+    /** The redundant sensors whose ρ is at least {@link #WELL_CHECKED}, or below it. */
+    List<String> sensors(boolean wellChecked) {
+        return redundant.stream().filter(id -> checkedShare.get(id) >= WELL_CHECKED == wellChecked).toList();
+    }
+
     /** Every redundant sensor, {@code trials} seeds each. */
     Row row(Kind kind, double k, int trials, long seed) {
+        return row(kind, k, trials, seed, redundant);
+    }
+
+    /** The given sensors, {@code trials} seeds each. */
+    Row row(Kind kind, double k, int trials, long seed, List<String> sensorIds) {
         List<Double> times = new ArrayList<>();
         int n = 0;
         int within = 0;
         int named = 0;
         int right = 0;
-        for (String sensor : redundant) {
+        for (String sensor : sensorIds) {
             for (int t = 0; t < trials; t++) {
                 Trial r = trial(kind, sensor, k, seed + 1_000_003L * t + sensor.hashCode());
                 n++;
@@ -280,7 +342,8 @@ public final class DetectionBench {
     FalseAlarms falseAlarms(double hours, long seed) {
         Simulator sim = Simulator.builder(truth).seed(seed).build();
         StepClock clock = new StepClock();
-        AlarmEngine alarms = new AlarmEngine(unit, AlarmSettings.DEFAULTS, clock);
+        AlarmEngine alarms = new AlarmEngine(unit, settings, clock);
+        evaluator.clear();
         int balance = 0;
         int suspect = 0;
         int other = 0;
@@ -306,27 +369,59 @@ public final class DetectionBench {
 
     static final double[] SIZES = {2.0, 3.0, 5.0};
 
+    /**
+     * Arguments, all optional: trials per sensor and size (10), fault-free hours (24), seed
+     * (20261202), window length (1), then closure limit, global-test factor and suspect limit for
+     * the window (the defaults without them), then a comma-separated list of fault kinds (all).
+     */
     public static void main(String[] args) {
         int trials = args.length > 0 ? Integer.parseInt(args[0]) : 10;
         double hours = args.length > 1 ? Double.parseDouble(args[1]) : 24.0;
         long seed = args.length > 2 ? Long.parseLong(args[2]) : 20261202L;
+        int window = args.length > 3 ? Integer.parseInt(args[3]) : 1;
+        AlarmSettings settings = args.length > 6 ? windowSettings(Double.parseDouble(args[4]),
+                Double.parseDouble(args[5]), Double.parseDouble(args[6])) : AlarmSettings.DEFAULTS;
+        List<Kind> kinds = args.length > 7 ? Arrays.stream(args[7].split(",")).map(k -> Kind.valueOf(
+                k.toUpperCase(Locale.ROOT))).toList() : List.of(Kind.values());
         long began = System.nanoTime();
-        DetectionBench bench = new DetectionBench();
-        System.out.println("redundant sensors (" + bench.redundant.size() + "): " + bench.redundant);
-        System.out.println("| fault | size | trials | detected | within 60 s | median s | p95 s | named | right first (of named) | right first (of all) |");
-        System.out.println("| --- | --- | --- | --- | --- | --- | --- | --- | --- | --- |");
-        for (Kind kind : Kind.values()) {
-            for (double k : kind.sized ? SIZES : new double[] {Double.NaN}) {
-                Row r = bench.row(kind, kind.sized ? k : 0.0, trials, seed);
-                System.out.println(format(r));
+        DetectionBench bench = new DetectionBench(window, settings);
+        System.out.printf(Locale.ROOT, "window %d snapshots; limits closure %.2f, global %.2f x quantile, suspect %.2f;"
+                + " %d trials per sensor and size; seed %d%n", window, settings.definition(AlarmKind.CLOSURE).limit(),
+                settings.definition(AlarmKind.GLOBAL_TEST).limit(), settings.definition(AlarmKind.SUSPECT_SENSOR).limit(),
+                trials, seed);
+        StringBuilder shares = new StringBuilder();
+        bench.checkedShare.forEach((id, rho) -> shares.append(String.format(Locale.ROOT, " %s %.2f", id, rho)));
+        System.out.println("redundant sensors (" + bench.redundant.size() + "), rho:" + shares);
+        for (boolean well : new boolean[] {true, false}) {
+            List<String> group = bench.sensors(well);
+            System.out.printf(Locale.ROOT, "%n%s (rho %s %.1f): %s%n", well ? "well-checked sensors" : "weakly checked sensors",
+                    well ? ">=" : "<", WELL_CHECKED, group);
+            System.out.println(HEADER);
+            for (Kind kind : kinds) {
+                for (double k : kind.sized ? SIZES : new double[] {Double.NaN}) {
+                    System.out.println(format(bench.row(kind, kind.sized ? k : 0.0, trials, seed, group)));
+                }
             }
         }
-        FalseAlarms fa = bench.falseAlarms(hours, seed);
+        if (kinds.contains(Kind.BIAS)) {
+            System.out.printf(Locale.ROOT, "%n3 sigma bias, per sensor%n| sensor | rho | trials | detected | within 60 s |"
+                    + " median s | p95 s | named | right first (of named) | right first (of all) |%n"
+                    + "| --- | --- | --- | --- | --- | --- | --- | --- | --- | --- |%n");
+            for (String id : bench.redundant) {
+                Row r = bench.row(Kind.BIAS, 3.0, trials, seed, List.of(id));
+                System.out.println(format(r).replaceFirst("\\| bias \\| 3σ", String.format(Locale.ROOT, "| %s | %.2f",
+                        id, bench.checkedShare.get(id))));
+            }
+        }
+        FalseAlarms fa = bench.falseAlarms(hours, seed ^ 0x5DEECE66DL);
         System.out.printf(Locale.ROOT, "fault-free %.1f h: %d energy-balance alarms (%.2f per 24 h), %d suspect alarms"
                 + " (%.2f per 24 h), %d others%n", fa.hours(), fa.energyBalance(), fa.energyBalancePer24h(), fa.suspect(),
                 fa.suspectPer24h(), fa.other());
         System.out.printf(Locale.ROOT, "wall time %.0f s%n", (System.nanoTime() - began) / 1e9);
     }
+
+    static final String HEADER = "| fault | size | trials | detected | within 60 s | median s | p95 s | named |"
+            + " right first (of named) | right first (of all) |\n| --- | --- | --- | --- | --- | --- | --- | --- | --- | --- |";
 
     static String format(Row r) {
         String size = r.kind().sized ? (r.kind() == Kind.NOISE ? "×" + (int) r.size() : (int) r.size() + "σ") : "n/a";
