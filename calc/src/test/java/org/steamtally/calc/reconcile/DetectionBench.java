@@ -33,13 +33,14 @@ import org.steamtally.calc.sim.TruthModel;
 /**
  * Monte Carlo evaluation of bad-sensor detection on the regenerative example (fernholm unit3): the
  * simulator runs at 1 s steps on an injected clock, every snapshot goes through
- * {@link ReconcilingEvaluator} and the {@link AlarmEngine} with its default settings, and each fault
- * kind is injected on each redundant sensor at each size. See docs/DETECTION.md for the method and
- * the figures; run with
+ * {@link WindowMeanEvaluator} (a window of 1 is the plain {@link ReconcilingEvaluator}) and the
+ * {@link AlarmEngine} (default settings for single snapshots, raised limits for window means), and
+ * each fault kind is injected on each redundant sensor at each size. See docs/DETECTION.md for the
+ * method and the figures; run with
  *
  * <pre>
  * java -cp calc/target/classes:calc/target/test-classes org.steamtally.calc.reconcile.DetectionBench \
- *     [trials per sensor and size] [fault-free hours] [seed]
+ *     [trials per sensor and size] [fault-free hours] [seed] [window] [limits...] [kinds]
  * </pre>
  *
  * Not a unit test: a full run takes minutes. {@code DetectionMonteCarloTest} keeps a small
@@ -47,7 +48,7 @@ import org.steamtally.calc.sim.TruthModel;
  */
 public final class DetectionBench {
 
-    /** Time zero of every run: 06:00 UTC, so the cooling-water daily cycle is in its rising part. */
+    /** Time zero of every run; load and cooling water are held, so the time of day does not matter. */
     static final Instant T0 = Instant.parse("2026-12-02T06:00:00Z");
     /** Fault-free seconds before the fault starts, so that every alarm starts from a settled state. */
     static final int LEAD_S = 20;
