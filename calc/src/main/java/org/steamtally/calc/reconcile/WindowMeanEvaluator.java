@@ -41,7 +41,8 @@ import org.steamtally.calc.plant.UnitDescription;
  * smallest count of good values over the sensors that have any, so a sensor that dropped out for a
  * while makes the uncertainties of all a little wider than they need be, never narrower.
  *
- * <p>Not thread-safe: one instance per unit and thread.
+ * <p>One compiled evaluator is kept per n_eff met so far (at most the window length), compiled on
+ * first use. Not thread-safe: one instance per unit and thread.
  */
 public final class WindowMeanEvaluator {
 
