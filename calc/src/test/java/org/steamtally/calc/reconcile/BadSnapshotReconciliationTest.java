@@ -12,6 +12,7 @@ import org.steamtally.calc.cycle.ReconciledSensor;
 import org.steamtally.calc.cycle.ReconciliationResult;
 import org.steamtally.calc.cycle.Snapshot;
 import org.steamtally.calc.cycle.UnitResult;
+import org.steamtally.calc.fixture.RegenerativeExample;
 import org.steamtally.calc.plant.UnitDescription;
 
 /** Stale, missing and implausible sensors lower the redundancy; nothing throws and nothing is NaN. */

@@ -24,7 +24,7 @@ import org.steamtally.calc.cycle.Snapshot;
 import org.steamtally.calc.cycle.Suspect;
 import org.steamtally.calc.cycle.UnitResult;
 import org.steamtally.calc.plant.UnitDescription;
-import org.steamtally.calc.sim.DesignPoint;
+import org.steamtally.calc.fixture.RegenerativeExample;
 import org.steamtally.calc.sim.Fault;
 import org.steamtally.calc.sim.SimulatedSample;
 import org.steamtally.calc.sim.Simulator;
@@ -144,7 +144,7 @@ public final class DetectionBench {
      */
     DetectionBench(int window, AlarmSettings settings) {
         unit = RegenerativeExample.unit();
-        truth = TruthModel.of(unit, designPoint());
+        truth = TruthModel.of(unit, RegenerativeExample.designPoint());
         evaluator = WindowMeanEvaluator.compile("fernholm", unit, window);
         this.settings = settings;
         // the window is full, and every alarm settled, before the fault starts
@@ -198,38 +198,6 @@ public final class DetectionBench {
     /** The redundant sensors of the example: those whose individual test can be made. */
     List<String> redundantSensors() {
         return redundant;
-    }
-
-    /**
-     * The design point of regenerative.yaml at full load (125 kg/s main steam), the same figures as
-     * deploy's ExampleDesignPoints.
-     */
-    static DesignPoint designPoint() {
-        double c = 273.15;
-        return DesignPoint.builder()
-                .flow("main_steam", 125.0)
-                .value("PT-101", 12.5e6).value("TT-101", 540 + c)
-                .value("PT-111", 4.2e6).value("TT-111", 395 + c)
-                .value("PT-121", 2.8e6).value("TT-121", 345 + c)
-                .value("PT-131", 2.6e6).value("TT-131", 540 + c)
-                .value("PT-141", 0.9e6).value("TT-141", 400 + c)
-                .value("PT-151", 250e3).value("TT-151", 250 + c)
-                .value("PT-301", 8.0e3).value("PT-302", 8.0e3)
-                .value("PT-311", 1.6e6)
-                .value("PT-321", 1.5e6).value("TT-321", 122 + c)
-                .value("PT-331", 240e3)
-                .value("PT-341", 1.6e6)
-                .value("PT-401", 0.85e6)
-                .value("PT-411", 15.0e6)
-                .value("PT-421", 14.6e6).value("TT-421", 245 + c)
-                .value("PT-431", 4.0e6)
-                .value("FT-501", 5000.0).value("TT-501", 18 + c)
-                .flowMeter("FT-421", "feedwater")
-                .isentropicEfficiency("lp_turbine", 0.88)
-                .isentropicEfficiency("condensate_pump", 0.75)
-                .isentropicEfficiency("drain_pump", 0.70)
-                .isentropicEfficiency("feed_pump", 0.80)
-                .build();
     }
 
     /** A clock the harness moves: one second of plant time per step, no wall clock. */

@@ -6,6 +6,7 @@ import org.steamtally.calc.cycle.ClosureResult;
 import org.steamtally.calc.cycle.ReconciledSensor;
 import org.steamtally.calc.cycle.ReconciliationResult;
 import org.steamtally.calc.cycle.UnitResult;
+import org.steamtally.calc.fixture.RegenerativeExample;
 import org.steamtally.calc.sim.Simulator;
 import org.steamtally.calc.sim.TruthModel;
 
@@ -32,7 +33,7 @@ public final class DetectionCalibration {
         double hours = args.length > 1 ? Double.parseDouble(args[1]) : 24.0;
         long seed = args.length > 2 ? Long.parseLong(args[2]) : 7L;
         var unit = RegenerativeExample.unit();
-        Simulator sim = Simulator.builder(TruthModel.of(unit, DetectionBench.designPoint())).seed(seed).build();
+        Simulator sim = Simulator.builder(TruthModel.of(unit, RegenerativeExample.designPoint())).seed(seed).build();
         WindowMeanEvaluator evaluator = WindowMeanEvaluator.compile("fernholm", unit, window);
         int steps = (int) Math.round(hours * 3600);
         double[] z = new double[steps];

@@ -8,6 +8,7 @@ import java.util.Random;
 import org.junit.jupiter.api.Test;
 import org.steamtally.calc.cycle.ReconciledSensor;
 import org.steamtally.calc.cycle.ReconciliationResult;
+import org.steamtally.calc.fixture.RegenerativeExample;
 import org.steamtally.calc.plant.UnitDescription;
 
 /**

@@ -11,6 +11,7 @@ import org.junit.jupiter.params.provider.CsvSource;
 import org.steamtally.calc.cycle.ReconciledSensor;
 import org.steamtally.calc.cycle.ReconciliationResult;
 import org.steamtally.calc.cycle.Suspect;
+import org.steamtally.calc.fixture.RegenerativeExample;
 import org.steamtally.calc.plant.UnitDescription;
 
 /**

@@ -10,6 +10,7 @@ import org.steamtally.calc.cycle.ClosureResult;
 import org.steamtally.calc.cycle.MetricsBasis;
 import org.steamtally.calc.cycle.StateResult;
 import org.steamtally.calc.cycle.UnitResult;
+import org.steamtally.calc.fixture.RegenerativeExample;
 import org.steamtally.calc.plant.UnitDescription;
 
 /** Which values the metrics of the full result record come from. */

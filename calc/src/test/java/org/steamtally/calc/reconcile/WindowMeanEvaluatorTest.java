@@ -11,6 +11,7 @@ import org.junit.jupiter.api.Test;
 import org.steamtally.calc.cycle.ReconciledSensor;
 import org.steamtally.calc.cycle.Snapshot;
 import org.steamtally.calc.cycle.UnitResult;
+import org.steamtally.calc.fixture.RegenerativeExample;
 import org.steamtally.calc.plant.UnitDescription;
 
 /** The window mean is reconciled with the standard uncertainty of a mean, u/√n (GUM 4.2.3). */
