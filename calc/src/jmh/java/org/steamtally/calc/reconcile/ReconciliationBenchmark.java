@@ -1,6 +1,5 @@
 package org.steamtally.calc.reconcile;
 
-import java.util.SplittableRandom;
 import java.util.concurrent.TimeUnit;
 import org.openjdk.jmh.annotations.Benchmark;
 import org.openjdk.jmh.annotations.BenchmarkMode;
@@ -49,26 +48,20 @@ public class ReconciliationBenchmark {
 
     @Setup
     public void setUp() {
-        UnitDescription unit = FernholmUnit3.unit();
+        ReconciliationSnapshots snapshots = ReconciliationSnapshots.ofRegenerativeExample();
+        UnitDescription unit = snapshots.unit();
         reconciler = Reconciler.compile(unit);
         evaluator = ReconcilingEvaluator.compile("fernholm", unit);
         model = CycleModel.compile("fernholm", unit);
-        double[] v = FernholmUnit3.consistentArray(unit);
-        SplittableRandom random = new SplittableRandom(20261201L);
-        for (int i = 0; i < v.length; i++) {
-            v[i] += random.nextDouble(-0.5, 0.5) * unit.sensors().get(i).standardUncertaintySi();
-        }
-        noisy = FernholmUnit3.snapshot(unit, v);
-        double[] b = v.clone();
-        int t = FernholmUnit3.index(unit, "TT-311");
-        b[t] += 5.0 * unit.sensors().get(t).standardUncertaintySi();
-        biased = FernholmUnit3.snapshot(unit, b);
+        noisy = snapshots.noisy();
+        biased = snapshots.biased();
         // A benchmark of the wrong path would measure nothing useful.
         require(reconciler.reconcile(noisy).result(), ReconciliationResult.PASSED);
         ReconciliationResult failed = reconciler.reconcile(biased).result();
         require(failed, ReconciliationResult.FAILED);
-        if (failed.suspects().isEmpty() || !failed.suspects().get(0).id().equals("TT-311")) {
-            throw new IllegalStateException("expected TT-311 as first suspect, got " + failed.suspects());
+        String expected = ReconciliationSnapshots.BIASED_SENSOR;
+        if (failed.suspects().isEmpty() || !failed.suspects().get(0).id().equals(expected)) {
+            throw new IllegalStateException("expected " + expected + " as first suspect, got " + failed.suspects());
         }
     }
 

@@ -3,10 +3,8 @@ package org.steamtally.calc.reconcile;
 import java.lang.management.ManagementFactory;
 import java.lang.management.ThreadMXBean;
 import java.util.Locale;
-import java.util.SplittableRandom;
 import org.steamtally.calc.cycle.CycleModel;
 import org.steamtally.calc.cycle.Snapshot;
-import org.steamtally.calc.plant.UnitDescription;
 
 /**
  * The CPU time of this thread per reconciliation of the snapshots of {@link ReconciliationBenchmark},
@@ -22,19 +20,11 @@ public final class ReconciliationCpuTime {
     }
 
     public static void main(String[] args) {
-        UnitDescription unit = FernholmUnit3.unit();
-        Reconciler reconciler = Reconciler.compile(unit);
-        CycleModel model = CycleModel.compile("fernholm", unit);
-        double[] v = FernholmUnit3.consistentArray(unit);
-        SplittableRandom random = new SplittableRandom(20261201L);
-        for (int i = 0; i < v.length; i++) {
-            v[i] += random.nextDouble(-0.5, 0.5) * unit.sensors().get(i).standardUncertaintySi();
-        }
-        Snapshot noisy = FernholmUnit3.snapshot(unit, v);
-        double[] b = v.clone();
-        int t = FernholmUnit3.index(unit, "TT-311");
-        b[t] += 5.0 * unit.sensors().get(t).standardUncertaintySi();
-        Snapshot biased = FernholmUnit3.snapshot(unit, b);
+        ReconciliationSnapshots snapshots = ReconciliationSnapshots.ofRegenerativeExample();
+        Reconciler reconciler = Reconciler.compile(snapshots.unit());
+        CycleModel model = CycleModel.compile("fernholm", snapshots.unit());
+        Snapshot noisy = snapshots.noisy();
+        Snapshot biased = snapshots.biased();
         ThreadMXBean mx = ManagementFactory.getThreadMXBean();
         int calls = 2000;
         long sink = 0;
