@@ -40,7 +40,7 @@ public class AlarmEvaluationBenchmark {
 
     /** A clock one second on at each reading, as the daemon's snapshots come at 1 Hz. */
     private static final class SteppingClock implements InstantSource {
-        private long epochSecond = Instant.parse("2026-03-01T12:00:00Z").getEpochSecond();
+        private long epochSecond = RegenerativeUnitFixture.SNAPSHOT_TIME.getEpochSecond();
 
         @Override
         public Instant instant() {
@@ -57,7 +57,7 @@ public class AlarmEvaluationBenchmark {
     @Setup
     public void setUp() {
         CycleModel model = CycleModel.compile("site", RegenerativeUnitFixture.unit());
-        snapshot = Snapshot.allGood(Instant.parse("2026-03-01T12:00:00Z"), "unit1", RegenerativeUnitFixture.values());
+        snapshot = RegenerativeUnitFixture.snapshot();
         result = model.evaluate(snapshot);
         reconciliation = Optional.of(new ReconciliationInput(8.0, 16.9, 9, List.of()));
         clock = new SteppingClock();

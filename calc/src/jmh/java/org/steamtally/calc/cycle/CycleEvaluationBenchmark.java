@@ -1,6 +1,5 @@
 package org.steamtally.calc.cycle;
 
-import java.time.Instant;
 import java.util.concurrent.TimeUnit;
 import org.openjdk.jmh.annotations.Benchmark;
 import org.openjdk.jmh.annotations.BenchmarkMode;
@@ -35,7 +34,7 @@ public class CycleEvaluationBenchmark {
     @Setup
     public void setUp() {
         model = CycleModel.compile("site", RegenerativeUnitFixture.unit());
-        snapshot = Snapshot.allGood(Instant.parse("2026-03-01T12:00:00Z"), "unit1", RegenerativeUnitFixture.values());
+        snapshot = RegenerativeUnitFixture.snapshot();
         UnitResult result = model.evaluate(snapshot);
         // A benchmark of a failing evaluation would measure the wrong path.
         for (StateResult s : result.states()) {

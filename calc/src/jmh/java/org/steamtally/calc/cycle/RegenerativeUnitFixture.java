@@ -1,6 +1,7 @@
 package org.steamtally.calc.cycle;
 
 import java.time.Duration;
+import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
@@ -42,6 +43,14 @@ public final class RegenerativeUnitFixture {
     /** One value per sensor, in the unit's sensor order. */
     public static double[] values() {
         return build().values.stream().mapToDouble(Double::doubleValue).toArray();
+    }
+
+    /** When {@link #snapshot} is taken. */
+    public static final Instant SNAPSHOT_TIME = Instant.parse("2026-03-01T12:00:00Z");
+
+    /** One all-good snapshot of the unit at {@link #values}, the input the benchmarks evaluate. */
+    public static Snapshot snapshot() {
+        return Snapshot.allGood(SNAPSHOT_TIME, unit().id(), values());
     }
 
     private static RegenerativeUnitFixture build() {

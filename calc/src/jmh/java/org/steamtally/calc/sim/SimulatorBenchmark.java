@@ -19,6 +19,7 @@ import org.steamtally.calc.cycle.CycleModel;
 import org.steamtally.calc.cycle.RegenerativeUnitFixture;
 import org.steamtally.calc.cycle.Snapshot;
 import org.steamtally.calc.cycle.UnitResult;
+import org.steamtally.calc.plant.UnitDescription;
 
 /**
  * One simulator step of the reheat-regenerative unit of {@link RegenerativeUnitFixture} (15 flowing
@@ -46,17 +47,18 @@ public class SimulatorBenchmark {
     public void setUp() {
         DesignPoint.Builder design = DesignPoint.builder().flow("main_steam", 150.0).isentropicEfficiency("lp", 0.90);
         List<String> derived = List.of("m_main_steam", "T_cw_out", "P_gen", "P_condensate_pump", "P_feed_pump", "m_fuel");
+        UnitDescription unit = RegenerativeUnitFixture.unit();
         double[] values = RegenerativeUnitFixture.values();
-        var sensors = RegenerativeUnitFixture.unit().sensors();
+        var sensors = unit.sensors();
         for (int i = 0; i < sensors.size(); i++) {
             if (!derived.contains(sensors.get(i).id())) {
                 design.value(sensors.get(i).id(), values[i]);
             }
         }
-        TruthModel truth = TruthModel.of(RegenerativeUnitFixture.unit(), design.build());
+        TruthModel truth = TruthModel.of(unit, design.build());
         // A benchmark of a truth that does not close would measure the wrong thing.
-        UnitResult check = CycleModel.compile("site", RegenerativeUnitFixture.unit()).evaluate(
-                Snapshot.allGood(T0, "unit1", truth.at(new OperatingConditions(0.5, 3.0)).sensorValuesSi()));
+        UnitResult check = CycleModel.compile("site", unit).evaluate(
+                Snapshot.allGood(T0, unit.id(), truth.at(new OperatingConditions(0.5, 3.0)).sensorValuesSi()));
         for (ClosureResult c : check.closure()) {
             if (!(Math.abs(c.z()) < 1e-6)) {
                 throw new IllegalStateException("truth does not close " + c.id() + ": z " + c.z());
