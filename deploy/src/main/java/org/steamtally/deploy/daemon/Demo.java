@@ -43,9 +43,12 @@ public final class Demo implements AutoCloseable {
     private final Daemon daemon;
     private final PlantSimulation simulation;
     private final String password;
+    private final String brokerUrl;
 
-    private Demo(EmbeddedBroker broker, Daemon daemon, PlantSimulation simulation, String password) {
+    private Demo(EmbeddedBroker broker, String brokerUrl, Daemon daemon, PlantSimulation simulation,
+                 String password) {
         this.broker = broker;
+        this.brokerUrl = brokerUrl;
         this.daemon = daemon;
         this.simulation = simulation;
         this.password = password;
@@ -85,7 +88,7 @@ public final class Demo implements AutoCloseable {
             daemon.extend(new DemoFaults(Map.of(unit.id(), sim), clock));
             daemon.start();
             sim.startPeriodic(STEP);
-            return new Demo(broker, daemon, sim, password);
+            return new Demo(broker, url, daemon, sim, password);
         } catch (IOException | RuntimeException e) {
             if (sim != null) {
                 sim.close();
@@ -127,6 +130,11 @@ public final class Demo implements AutoCloseable {
     /** The dashboard's address. */
     public String address() {
         return "http://127.0.0.1:" + daemon.httpPort();
+    }
+
+    /** The broker the simulation publishes to and the collector reads from. */
+    public String brokerUrl() {
+        return brokerUrl;
     }
 
     /** The operator's password for this run. */
