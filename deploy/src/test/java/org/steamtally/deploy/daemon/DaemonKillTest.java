@@ -44,7 +44,8 @@ class DaemonKillTest {
     @TempDir
     Path dir;
 
-    private final HttpClient http = HttpClient.newBuilder().connectTimeout(Duration.ofSeconds(5)).build();
+    private final HttpClient http = HttpClient.newBuilder().version(HttpClient.Version.HTTP_1_1)
+            .connectTimeout(Duration.ofSeconds(5)).build();
 
     @Test
     void afterSigkillTheDaemonRestartsWithItsActiveAlarmRestored() throws Exception {
@@ -91,6 +92,11 @@ class DaemonKillTest {
             // Results continue after the restart.
             awaitJson(port2, "/api/v1/units/unit3/live", Duration.ofSeconds(15),
                     j -> !j.path("ts").asText().equals(lastTs));
+
+            // SIGTERM: the shutdown hook stops intake, finishes, flushes and exits on its own.
+            second.destroy();
+            assertTrue(second.waitFor(40, java.util.concurrent.TimeUnit.SECONDS), "the daemon stops on SIGTERM");
+            assertTrue(Files.readString(stateFile).contains("ACTIVE_UNACKNOWLEDGED"), "alarm state kept on stop");
         } finally {
             sim.close();
             for (Process p : new Process[] {first, second}) {
@@ -138,7 +144,7 @@ class DaemonKillTest {
         while (System.nanoTime() < deadline) {
             try {
                 HttpResponse<String> r = http.send(HttpRequest.newBuilder(URI.create("http://127.0.0.1:" + port + path))
-                        .GET().build(), HttpResponse.BodyHandlers.ofString());
+                        .timeout(Duration.ofSeconds(10)).GET().build(), HttpResponse.BodyHandlers.ofString());
                 if (r.statusCode() == 200) {
                     last = JSON.readTree(r.body());
                     if (condition.test(last)) {
@@ -146,7 +152,7 @@ class DaemonKillTest {
                     }
                 }
             } catch (IOException e) {
-                // not listening yet
+                // not listening yet, or the request timed out
             }
             Thread.sleep(250);
         }

@@ -49,7 +49,8 @@ class DemoTest {
     static Path dataDir;
 
     private Demo demo;
-    private final HttpClient http = HttpClient.newBuilder().connectTimeout(Duration.ofSeconds(5)).build();
+    private final HttpClient http = HttpClient.newBuilder().version(HttpClient.Version.HTTP_1_1)
+            .connectTimeout(Duration.ofSeconds(5)).build();
 
     @BeforeAll
     void startDemo() throws Exception {
@@ -66,7 +67,7 @@ class DemoTest {
     }
 
     private HttpResponse<String> get(String path) throws Exception {
-        return http.send(HttpRequest.newBuilder(URI.create(demo.address() + path)).GET().build(),
+        return http.send(HttpRequest.newBuilder(URI.create(demo.address() + path)).timeout(Duration.ofSeconds(10)).GET().build(),
                 HttpResponse.BodyHandlers.ofString());
     }
 
