@@ -86,7 +86,13 @@ public final class RunCommand implements Callable<Integer> {
             daemon.close();
             stopped.countDown();
         }, "steamtally-shutdown"));
-        daemon.start();
+        try {
+            daemon.start();
+        } catch (java.io.IOException | RuntimeException e) {
+            // The hook closes whatever did start (store, collector) as the JVM exits.
+            err.println("run: could not start: " + e.getMessage());
+            return Launcher.EXIT_USAGE;
+        }
         if (users.isEmpty()) {
             err.println("run: no dashboard accounts (" + OperatorAccounts.USERS_FILE
                     + " not set): alarms can be watched but not acknowledged or shelved");
