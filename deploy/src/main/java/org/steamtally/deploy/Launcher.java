@@ -38,6 +38,11 @@ import picocli.CommandLine.Spec;
                 HelpCommand.class,
                 PropsCommand.class,
                 ReplayCommand.class,
+                org.steamtally.deploy.daemon.RunCommand.class,
+                org.steamtally.deploy.daemon.DemoCommand.class,
+                org.steamtally.deploy.daemon.CheckConfigCommand.class,
+                org.steamtally.deploy.daemon.SimulateCommand.class,
+                org.steamtally.deploy.daemon.HashPasswordCommand.class,
         })
 public final class Launcher implements Callable<Integer> {
 

@@ -45,11 +45,33 @@ public final class DashboardServer {
     private final DashboardSources sources;
     private final DashboardConfig config;
     private HttpServer server;
+    private final java.util.List<Extension> extensions = new java.util.ArrayList<>();
 
     public DashboardServer(Vertx vertx, DashboardSources sources, DashboardConfig config) {
         this.vertx = vertx;
         this.sources = sources;
         this.config = config;
+    }
+
+    /**
+     * Extra API routes from the daemon's wiring (e.g. the demo's fault injection), registered behind
+     * the same security headers, body limit and session handling as the built-in ones. Handlers may
+     * throw {@link ApiException}.
+     */
+    @FunctionalInterface
+    public interface Extension {
+        /**
+         * @param router   the dashboard's router
+         * @param operator a handler that lets a request through only from a logged-in operator with the
+         *                 session's CSRF token, as for alarm actions; put it before the route's handler
+         */
+        void register(Router router, io.vertx.core.Handler<io.vertx.ext.web.RoutingContext> operator);
+    }
+
+    /** Adds an extension; call before {@link #start()}. */
+    public DashboardServer extend(Extension extension) {
+        extensions.add(java.util.Objects.requireNonNull(extension, "extension"));
+        return this;
     }
 
     /** Starts listening; the future carries the actual port (useful with port 0). */
@@ -121,6 +143,10 @@ public final class DashboardServer {
         r.post("/api/v1/alarms/:id/acknowledge").handler(access::operator).handler(alarms::acknowledge);
         r.post("/api/v1/alarms/:id/shelve").handler(access::operator).handler(alarms::shelve);
         r.post("/api/v1/alarms/:id/unshelve").handler(access::operator).handler(alarms::unshelve);
+
+        for (Extension e : extensions) {
+            e.register(r, access::operator);
+        }
 
         r.route("/api/*").handler(ctx -> Responses.error(ctx, 404, "no API resource at " + ctx.request().method()
                 + " " + ctx.normalizedPath() + "; the OpenAPI document at /api/v1/openapi.yaml lists them"));

@@ -4,6 +4,8 @@ import java.time.Instant;
 import java.util.Objects;
 import java.util.Optional;
 import java.util.OptionalDouble;
+import org.steamtally.calc.alarm.AlarmEvent;
+import org.steamtally.calc.alarm.AlarmState;
 
 /**
  * One alarm event as the store keeps it (measurement {@code alarms}): a state transition of an alarm
@@ -58,6 +60,20 @@ public record StoredAlarmEvent(
         requireFinite(value, "value", alarmId);
         requireFinite(limit, "limit", alarmId);
         timestamp = Instant.ofEpochMilli(timestamp.toEpochMilli());
+    }
+
+    /**
+     * The one mapping from the alarm engine's event to the stored form: an operator action is stored
+     * under its stimulus ({@code acknowledge}, {@code shelve}, ...), everything else as a
+     * {@code transition}; the states and priority by their keys; {@code active} when the state after
+     * is one of the active states (B or C of ISA-18.2), so that a shelved or suppressed alarm does not
+     * count as active time.
+     */
+    public static StoredAlarmEvent of(String site, AlarmEvent e) {
+        String kind = e.stimulus().isOperatorAction() ? e.stimulus().key() : "transition";
+        boolean active = e.to() == AlarmState.ACTIVE_UNACKNOWLEDGED || e.to() == AlarmState.ACTIVE_ACKNOWLEDGED;
+        return new StoredAlarmEvent(e.time(), site, e.unitId(), e.alarmId(), kind, e.priority().key(), e.from().key(),
+                e.to().key(), active, e.value(), e.limit(), e.user(), e.note());
     }
 
     private static void requireFinite(OptionalDouble v, String name, String alarmId) {

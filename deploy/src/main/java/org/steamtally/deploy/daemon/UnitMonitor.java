@@ -1,0 +1,307 @@
+package org.steamtally.deploy.daemon;
+
+import io.micrometer.core.instrument.MeterRegistry;
+import io.micrometer.core.instrument.Timer;
+import java.io.IOException;
+import java.time.Clock;
+import java.time.Duration;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Optional;
+import java.util.concurrent.Callable;
+import java.util.concurrent.CopyOnWriteArrayList;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.Future;
+import java.util.concurrent.TimeUnit;
+import java.util.concurrent.TimeoutException;
+import java.util.function.Consumer;
+import org.steamtally.calc.alarm.AlarmEngine;
+import org.steamtally.calc.alarm.AlarmEngineState;
+import org.steamtally.calc.alarm.AlarmEvent;
+import org.steamtally.calc.alarm.AlarmRecord;
+import org.steamtally.calc.alarm.AlarmSettings;
+import org.steamtally.calc.alarm.AlarmState;
+import org.steamtally.calc.alarm.ReconciliationInput;
+import org.steamtally.calc.cycle.ReconciledSensor;
+import org.steamtally.calc.cycle.ReconciliationResult;
+import org.steamtally.calc.cycle.Snapshot;
+import org.steamtally.calc.cycle.UnitResult;
+import org.steamtally.calc.plant.UnitDescription;
+import org.steamtally.calc.reconcile.ReconcilingEvaluator;
+import org.steamtally.dashboard.push.InMemoryLiveResults;
+import org.steamtally.dashboard.store.ResultStore;
+import org.steamtally.dashboard.store.StoredAlarmEvent;
+import org.steamtally.dashboard.store.StoredReconciliation;
+import org.slf4j.Logger;
+import org.slf4j.LoggerFactory;
+
+/**
+ * The monitoring of one unit: each snapshot through the reconciling evaluator and the alarm engine,
+ * then to the store, the live results and the alarm listeners. Everything that touches the unit's
+ * evaluator or alarm engine (evaluations, operator actions, shelf expiry) runs on the unit's one
+ * thread, since neither is thread-safe; operator actions are handed to that thread and waited for.
+ * Every change of alarm state is saved to the data directory before the next snapshot is taken, so
+ * that a killed daemon comes back with its alarms as they were.
+ */
+public final class UnitMonitor implements AutoCloseable {
+
+    private static final Logger LOG = LoggerFactory.getLogger(UnitMonitor.class);
+    /** How long the intake waits for a snapshot before it looks at shelves and the stop flag again. */
+    private static final Duration POLL = Duration.ofMillis(250);
+    private static final Duration ACTION_TIMEOUT = Duration.ofSeconds(10);
+
+    /** Where the monitor takes its snapshots from: the collector's slot, or a test's queue. */
+    @FunctionalInterface
+    public interface SnapshotSource {
+        Optional<Snapshot> take(Duration timeout) throws InterruptedException;
+    }
+
+    private final String site;
+    private final UnitDescription unit;
+    private final ReconcilingEvaluator evaluator;
+    private final AlarmEngine engine;
+    private final SnapshotSource source;
+    private final ResultStore store;
+    private final InMemoryLiveResults live;
+    private final AlarmStateFile stateFile;
+    private final Clock clock;
+    private final Timer calcTime;
+    private final Timer snapshotLatency;
+    private final ExecutorService worker;
+    private final Thread intake;
+    private final List<Consumer<List<AlarmRecord>>> alarmListeners = new CopyOnWriteArrayList<>();
+    private volatile List<AlarmRecord> alarms = List.of();
+    private volatile boolean running;
+    private volatile long processed;
+
+    public UnitMonitor(String site, UnitDescription unit, AlarmSettings settings, SnapshotSource source,
+                       ResultStore store, InMemoryLiveResults live, AlarmStateFile stateFile, MeterRegistry registry,
+                       Clock clock) {
+        this.site = site;
+        this.unit = unit;
+        this.evaluator = ReconcilingEvaluator.compile(site, unit);
+        this.engine = new AlarmEngine(unit, settings, clock);
+        this.source = source;
+        this.store = store;
+        this.live = live;
+        this.stateFile = stateFile;
+        this.clock = clock;
+        this.calcTime = Timer.builder("steamtally.calc.time").tag("unit", unit.id())
+                .description("evaluation of one snapshot: cycle model, reconciliation and alarms")
+                .publishPercentileHistogram().register(registry);
+        this.snapshotLatency = Timer.builder("steamtally.snapshot.latency").tag("unit", unit.id())
+                .description("from a snapshot's timestamp to its result being stored and published")
+                .publishPercentileHistogram().register(registry);
+        this.worker = Executors.newSingleThreadExecutor(r -> new Thread(r, "steamtally-unit-" + unit.id()));
+        this.intake = new Thread(this::intakeLoop, "steamtally-intake-" + unit.id());
+        this.intake.setDaemon(true);
+    }
+
+    /** Restores the saved alarm state, if any, and starts taking snapshots. */
+    public void start() {
+        call(() -> {
+            restore();
+            alarms = engine.alarms();
+            return null;
+        });
+        running = true;
+        intake.start();
+    }
+
+    private void restore() {
+        try {
+            Optional<AlarmEngineState> saved = stateFile.load();
+            if (saved.isPresent()) {
+                List<String> leftOut = engine.restore(saved.get());
+                long active = saved.get().alarms().stream().filter(a -> a.state() != AlarmState.NORMAL).count();
+                LOG.info("unit {}: alarm state restored from {} ({} alarms not normal)", unit.id(), stateFile.path(),
+                        active);
+                leftOut.forEach(l -> LOG.warn("unit {}: {}", unit.id(), l));
+            }
+        } catch (IOException | IllegalArgumentException e) {
+            LOG.error("unit {}: alarm state not restored, starting with every alarm normal: {}", unit.id(),
+                    e.getMessage());
+        }
+    }
+
+    public String unitId() {
+        return unit.id();
+    }
+
+    public UnitDescription unit() {
+        return unit;
+    }
+
+    /** Snapshots evaluated so far. */
+    public long processed() {
+        return processed;
+    }
+
+    /** The unit's alarms as of the last change, every state included. */
+    public List<AlarmRecord> alarms() {
+        return alarms;
+    }
+
+    /** Calls {@code listener} on the unit's thread with the records of the alarms that changed. */
+    public void onAlarmChange(Consumer<List<AlarmRecord>> listener) {
+        alarmListeners.add(listener);
+    }
+
+    /**
+     * Runs an engine action on the unit's thread, then stores its event, saves the state and tells
+     * the listeners.
+     *
+     * @throws RuntimeException the action's own exception, unwrapped
+     */
+    public AlarmRecord act(java.util.function.Function<AlarmEngine, AlarmEvent> action) {
+        return call(() -> {
+            AlarmEvent e = action.apply(engine);
+            afterEvents(List.of(e));
+            return engine.alarm(e.alarmId()).orElseThrow();
+        });
+    }
+
+    private <T> T call(Callable<T> task) {
+        Future<T> f = worker.submit(task);
+        try {
+            return f.get(ACTION_TIMEOUT.toMillis(), TimeUnit.MILLISECONDS);
+        } catch (ExecutionException e) {
+            if (e.getCause() instanceof RuntimeException re) {
+                throw re;
+            }
+            throw new IllegalStateException(e.getCause());
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            throw new IllegalStateException("interrupted while waiting for unit " + unit.id(), e);
+        } catch (TimeoutException e) {
+            f.cancel(false);
+            throw new IllegalStateException("unit " + unit.id() + " did not answer within " + ACTION_TIMEOUT);
+        }
+    }
+
+    private void intakeLoop() {
+        while (running) {
+            try {
+                Optional<Snapshot> s = source.take(POLL);
+                if (!running) {
+                    break;
+                }
+                Future<?> f = worker.submit(() -> {
+                    s.ifPresent(this::process);
+                    List<AlarmEvent> expired = engine.expireShelves();
+                    if (!expired.isEmpty()) {
+                        afterEvents(expired);
+                    }
+                });
+                f.get();
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+                return;
+            } catch (ExecutionException | java.util.concurrent.RejectedExecutionException e) {
+                LOG.error("unit {}: evaluation failed, snapshot skipped", unit.id(), e);
+            }
+        }
+    }
+
+    /** One snapshot, start to end; a failure is logged and loses only this snapshot. */
+    void process(Snapshot snapshot) {
+        long t0 = System.nanoTime();
+        UnitResult result;
+        List<AlarmEvent> events;
+        try {
+            result = evaluator.evaluate(snapshot);
+            events = engine.evaluate(snapshot, result, ReconciliationInput.from(result.reconciliation()));
+        } catch (RuntimeException e) {
+            LOG.error("unit {}: snapshot at {} could not be evaluated: {}", unit.id(), snapshot.timestamp(),
+                    e.toString());
+            return;
+        } finally {
+            calcTime.record(System.nanoTime() - t0, TimeUnit.NANOSECONDS);
+        }
+        store.writeResult(result);
+        storedReconciliation(result).ifPresent(store::writeReconciliation);
+        if (!events.isEmpty()) {
+            afterEvents(events);
+        }
+        live.publish(result);
+        processed++;
+        snapshotLatency.record(Duration.between(snapshot.timestamp(), clock.instant()).abs());
+    }
+
+    private void afterEvents(List<AlarmEvent> events) {
+        List<AlarmRecord> changed = new ArrayList<>(events.size());
+        for (AlarmEvent e : events) {
+            store.writeAlarmEvent(StoredAlarmEvent.of(site, e));
+            LOG.info("unit {}: alarm {} {} -> {} ({}): {}", unit.id(), e.alarmId(), e.from().key(), e.to().key(),
+                    e.stimulus().key(), e.text());
+            engine.alarm(e.alarmId()).ifPresent(changed::add);
+        }
+        alarms = engine.alarms();
+        try {
+            stateFile.save(engine.state());
+        } catch (IOException e) {
+            LOG.error("unit {}: alarm state not saved to {}: {}", unit.id(), stateFile.path(), e.toString());
+        }
+        for (Consumer<List<AlarmRecord>> l : alarmListeners) {
+            try {
+                l.accept(changed);
+            } catch (RuntimeException ex) {
+                LOG.warn("unit {}: alarm listener failed: {}", unit.id(), ex.toString());
+            }
+        }
+    }
+
+    /**
+     * The reconciliation part of a record as the store keeps it; empty when no test ran (no
+     * redundancy, not converged, not run). Sensors without a measured or reconciled value are left
+     * out; a just-determined sensor's test value is 0, since its adjustment is zero by construction.
+     */
+    static Optional<StoredReconciliation> storedReconciliation(UnitResult r) {
+        ReconciliationResult rec = r.reconciliation();
+        if (rec.chi2Limit().isEmpty() || !Double.isFinite(rec.chi2())) {
+            return Optional.empty();
+        }
+        List<StoredReconciliation.Sensor> sensors = new ArrayList<>();
+        for (ReconciledSensor s : rec.sensors()) {
+            if (s.measured().isEmpty() || s.reconciled().isEmpty() || s.sigmaReconciled().isEmpty()) {
+                continue;
+            }
+            double test = s.testValue().orElse(0.0);
+            if (!Double.isFinite(s.measured().getAsDouble()) || !Double.isFinite(s.reconciled().getAsDouble())
+                    || !Double.isFinite(s.sigmaReconciled().getAsDouble()) || !Double.isFinite(test)) {
+                continue;
+            }
+            sensors.add(new StoredReconciliation.Sensor(s.id(), s.measured().getAsDouble(),
+                    s.reconciled().getAsDouble(), s.sigmaReconciled().getAsDouble(), test, s.suspect()));
+        }
+        return Optional.of(new StoredReconciliation(r.timestamp(), r.site(), r.unit(), rec.chi2(),
+                rec.chi2Limit().getAsDouble(), rec.redundancy(), rec.passed(), sensors));
+    }
+
+    /** Stops intake, lets the snapshot in hand finish, saves the alarm state. */
+    @Override
+    public void close() {
+        running = false;
+        intake.interrupt();
+        try {
+            intake.join(5_000);
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+        }
+        worker.submit(() -> {
+            try {
+                stateFile.save(engine.state());
+            } catch (IOException e) {
+                LOG.error("unit {}: alarm state not saved on stop: {}", unit.id(), e.toString());
+            }
+        });
+        worker.shutdown();
+        try {
+            worker.awaitTermination(10, TimeUnit.SECONDS);
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+        }
+    }
+}
