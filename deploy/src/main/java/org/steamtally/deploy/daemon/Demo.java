@@ -68,7 +68,9 @@ public final class Demo implements AutoCloseable {
         DaemonConfigFiles files = DaemonConfigFiles.parse("regenerative.yaml", exampleText());
         UnitDescription unit = files.plant().units().get(0);
         EmbeddedBroker broker = brokerUrl.isPresent() ? null : EmbeddedBroker.start();
-        String url = brokerUrl.orElseGet(broker::url);
+        // A lambda, not broker::url: a method reference evaluates its receiver at once, and there is no
+        // embedded broker when an external one is given.
+        String url = brokerUrl.orElseGet(() -> broker.url());
         String suffix = HexFormat.of().formatHex(randomBytes(4));
         CollectorSettings collector = CollectorSettings.builder(List.of(url), "steamtally-demo-" + suffix)
                 .protocol(MqttProtocol.MQTT_3_1_1).build();

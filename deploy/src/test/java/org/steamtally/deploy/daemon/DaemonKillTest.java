@@ -52,7 +52,7 @@ class DaemonKillTest {
         Optional<String> external = Optional.ofNullable(System.getenv(DemoTest.MQTT_URL_VARIABLE))
                 .filter(s -> !s.isBlank()).map(String::trim);
         EmbeddedBroker broker = external.isPresent() ? null : EmbeddedBroker.start();
-        String url = external.orElseGet(broker::url);
+        String url = external.orElseGet(() -> broker.url());
         Path config = dir.resolve("plant.yaml");
         Files.writeString(config, Demo.exampleText() + "\ncollector:\n  brokers: [" + url + "]\n"
                 + "  protocol: \"3.1.1\"\n  client_id: steamtally-kill-test-" + ProcessHandle.current().pid() + "\n",
