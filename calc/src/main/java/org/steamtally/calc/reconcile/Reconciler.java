@@ -5,6 +5,7 @@ import java.util.Arrays;
 import java.util.Comparator;
 import java.util.HashMap;
 import java.util.LinkedHashMap;
+import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
@@ -167,6 +168,8 @@ public final class Reconciler {
 
     private final double[] chi2Limit;
     private final double testLimit;
+    /** Per measured or declared quantity, the labels of the balances it enters; fixed at compile time. */
+    private final Map<String, List<String>> balancesByQuantity;
 
     private Reconciler(UnitDescription unit) {
         unitId = unit.id();
@@ -357,6 +360,41 @@ public final class Reconciler {
             chi2Limit[k] = ChiSquare.quantile(CONFIDENCE, k);
         }
         testLimit = ChiSquare.normalTwoSided(CONFIDENCE);
+        balancesByQuantity = participation();
+    }
+
+    /**
+     * Which balances each quantity enters: the non-zero pattern of the columns of ∂f/∂x. A mass
+     * balance or check-flow row holds the flows of its states; an energy row also the enthalpies of
+     * its states, so the p (and T) sensors that fix them, and its independent side's inputs. The
+     * pressure of a state whose enthalpy comes from an energy balance enters no row.
+     */
+    private Map<String, List<String>> participation() {
+        Map<Integer, LinkedHashSet<String>> byInput = new LinkedHashMap<>();
+        for (int r = 0; r < rowCount; r++) {
+            boolean energy = rowKind[r] != ROW_MASS && rowKind[r] != ROW_METER;
+            String label = rowLabel[r];
+            for (int j : rowStates[r]) {
+                if (flowSensor[j] >= 0) {
+                    byInput.computeIfAbsent(flowSensor[j], q -> new LinkedHashSet<>()).add(label);
+                }
+                if (energy && hMode[j] != H_BALANCE) {
+                    byInput.computeIfAbsent(pSensor[j], q -> new LinkedHashSet<>()).add(label);
+                    if (tSensor[j] >= 0) {
+                        byInput.computeIfAbsent(tSensor[j], q -> new LinkedHashSet<>()).add(label);
+                    }
+                }
+            }
+            for (int q : rowInputs[r]) {
+                // a constant declared without uncertainty is fixed, not a quantity that could be suspect
+                if (q < sensorCount || constantSigma[q - sensorCount] > 0.0) {
+                    byInput.computeIfAbsent(q, k -> new LinkedHashSet<>()).add(label);
+                }
+            }
+        }
+        Map<String, List<String>> out = new HashMap<>();
+        byInput.forEach((q, labels) -> out.put(inputId(q), List.copyOf(labels)));
+        return Map.copyOf(out);
     }
 
     /**
@@ -431,6 +469,29 @@ public final class Reconciler {
             }
         }
         return ids;
+    }
+
+    /**
+     * The balances a measured or declared quantity takes part in, by the names the reconciliation
+     * uses for them elsewhere (e.g. "mass balance of hp_heater", "energy balance of deaerator",
+     * "check flow FT-421 on feedwater", "energy balance of condenser+cooling_water",
+     * "energy balance of hp_turbine+lp_turbine+generator"), in the order the balances are built:
+     * per component in the unit's order its mass and adiabatic energy balances, then the check-flow
+     * meters, then the balances against an independent measurement (generator, cooling water,
+     * motor, fuel).
+     *
+     * <p>This is the structure of the unit's balances, worked out once by {@link #compile}: it does
+     * not depend on a snapshot. Whether the sensor is redundant in a given snapshot (and so can be
+     * checked at all) depends on which other sensors have usable values; the
+     * {@link ReconciledSensor#redundancy()} of a result says that.
+     *
+     * @param quantityId a sensor id, or a declared constant's id such as {@code generator.efficiency}
+     * @return the balances, or an empty list when the quantity enters none (e.g. the pressure of a
+     *         state whose enthalpy is fixed by an energy balance, or a sensor the balances do not
+     *         use) or is not a quantity of this unit; never null. Safe to call from any thread.
+     */
+    public List<String> balancesOf(String quantityId) {
+        return balancesByQuantity.getOrDefault(quantityId, List.of());
     }
 
     // ================================================================ one snapshot

@@ -1,5 +1,6 @@
 package org.steamtally.calc.reconcile;
 
+import java.util.List;
 import java.util.Objects;
 import org.steamtally.calc.cycle.CycleModel;
 import org.steamtally.calc.cycle.MetricsBasis;
@@ -41,6 +42,14 @@ public final class ReconcilingEvaluator {
     public static ReconcilingEvaluator compile(String siteId, UnitDescription unit) {
         CycleModel model = CycleModel.compile(siteId, unit);
         return new ReconcilingEvaluator(model, Reconciler.compile(unit));
+    }
+
+    /**
+     * The balances a sensor (or declared constant) takes part in, fixed when the unit is compiled;
+     * see {@link Reconciler#balancesOf}. Safe to call from any thread, unlike {@link #evaluate}.
+     */
+    public List<String> balancesOf(String quantityId) {
+        return reconciler.balancesOf(quantityId);
     }
 
     /** The full result record of one snapshot; never throws for bad sensor values. */

@@ -145,8 +145,8 @@ public final class EngineAlarmBoard implements AlarmBoard {
         if (bias.isEmpty()) {
             biasUnit = Optional.empty();
         }
-        // The engine does not say which balances a sensor takes part in; the text names the set.
-        List<String> balances = List.of();
+        // For an equivalence set, the balances of the sensor named; the alarm text names the rest.
+        List<String> balances = r.suspect().map(s -> m.balancesOf(s.sensorId())).orElse(List.of());
         return Optional.of(new AlarmView(boardId(m.unitId(), r.id()), m.unitId(), priority, state, r.text(),
                 r.stateSince(), sensor, bias, biasUnit, balances, r.shelf().map(s -> s.until()),
                 r.shelf().map(s -> s.reason())));

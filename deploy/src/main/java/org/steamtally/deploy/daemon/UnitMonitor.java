@@ -134,6 +134,14 @@ public final class UnitMonitor implements AutoCloseable {
         return unit;
     }
 
+    /**
+     * The balances a sensor takes part in, fixed when the unit was compiled; safe from any thread
+     * (see {@link ReconcilingEvaluator#balancesOf}).
+     */
+    public List<String> balancesOf(String sensorId) {
+        return evaluator.balancesOf(sensorId);
+    }
+
     /** Snapshots evaluated so far. */
     public long processed() {
         return processed;

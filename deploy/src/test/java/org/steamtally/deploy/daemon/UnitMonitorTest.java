@@ -163,6 +163,9 @@ class UnitMonitorTest {
         AlarmView view = board.list(unit.id()).stream().filter(v -> v.sensorId().filter(SENSOR::equals).isPresent())
                 .filter(v -> v.state() == AlarmView.State.UNACKNOWLEDGED).findFirst()
                 .orElseThrow(() -> new AssertionError("no suspect alarm on the board: " + board.list(unit.id())));
+        // FT-421 is the check meter on the feedwater (examples/regenerative.yaml): its only balance
+        // is m_feedwater − m_FT-421 = 0.
+        assertEquals(List.of("check flow FT-421 on feedwater"), view.balances());
         AlarmView acked = board.acknowledge(view.id(), "shift-a");
         assertEquals(AlarmView.State.ACKNOWLEDGED, acked.state());
         StoredAlarmEvent last = rig.store().alarmEvents.get(rig.store().alarmEvents.size() - 1);
