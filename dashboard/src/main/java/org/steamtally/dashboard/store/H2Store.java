@@ -29,7 +29,8 @@ import org.steamtally.dashboard.store.Measurement.Field;
  * with the same names as the InfluxDB schema (docs/STORE.md): columns {@code site, unit}, the id tag
  * (except {@code cycle}), {@code ts} (BIGINT, ms since the epoch) and one nullable column per field.
  * The primary key is (site, unit, id, ts), the point's identity, and writes are {@code MERGE}s, so
- * writing a point again replaces it.
+ * writing a point again replaces it. Per-minute rollups of {@code cycle} and {@code closure}
+ * ({@link H2Rollup}), kept in step in each write's transaction, answer the shift summary's whole minutes.
  *
  * <p>Points older than the retention period are deleted by {@link #purgeExpired()}, which runs at
  * opening and then on a fixed schedule; "now" comes from the injected clock. H2 commits each write
@@ -63,9 +64,12 @@ public final class H2Store implements StoreBackend {
     private final ScheduledExecutorService purger;
     private final Map<Measurement, String> merges = new EnumMap<>(Measurement.class);
     private final Map<Measurement, String> inserts = new EnumMap<>(Measurement.class);
+    /** Whether shift-summary queries read the per-minute rollups (false only to compare, in the load driver). */
+    private final boolean rollupQueries;
 
-    private H2Store(Connection write, List<Connection> query, Clock clock, Duration retention) {
+    private H2Store(Connection write, List<Connection> query, Clock clock, Duration retention, boolean rollupQueries) {
         this.writeConnection = write;
+        this.rollupQueries = rollupQueries;
         this.allQueryConnections = List.copyOf(query);
         this.queryConnections = new java.util.concurrent.ArrayBlockingQueue<>(query.size(), false, query);
         this.clock = clock;
@@ -85,6 +89,16 @@ public final class H2Store implements StoreBackend {
      * @throws StoreQueryException when the database cannot be opened (e.g. another process holds it)
      */
     public static H2Store open(Path dataDir, Duration retention, Duration purgeInterval, Clock clock) {
+        return open(dataDir, retention, purgeInterval, clock, true);
+    }
+
+    /**
+     * As {@link #open(Path, Duration, Duration, Clock)}; with {@code rollupQueries} false the
+     * summary queries read the raw rows (the rollups are maintained all the same), so that a
+     * benchmark can compare both on the same data.
+     */
+    static H2Store open(Path dataDir, Duration retention, Duration purgeInterval, Clock clock,
+            boolean rollupQueries) {
         Objects.requireNonNull(clock, "clock");
         if (retention.isNegative() || retention.isZero() || purgeInterval.isNegative() || purgeInterval.isZero()) {
             throw new IllegalArgumentException("retention " + retention + " and purge interval " + purgeInterval
@@ -98,7 +112,7 @@ public final class H2Store implements StoreBackend {
             Connection write = DriverManager.getConnection(url, "sa", "");
             List<Connection> query = List.of(DriverManager.getConnection(url, "sa", ""),
                     DriverManager.getConnection(url, "sa", ""));
-            H2Store store = new H2Store(write, query, clock, retention);
+            H2Store store = new H2Store(write, query, clock, retention, rollupQueries);
             store.createSchema();
             store.purgeExpired();
             long ms = purgeInterval.toMillis();
@@ -176,6 +190,7 @@ public final class H2Store implements StoreBackend {
                     inserts.put(m, "INSERT INTO " + q(m.measurementName()) + " (" + all + ") VALUES (" + marks + ")");
                 }
             }
+            H2Rollup.createSchema(writeConnection);
         }
     }
 
@@ -244,6 +259,14 @@ public final class H2Store implements StoreBackend {
                     ps.executeBatch();
                 }
             }
+            // In the same transaction: the rollup never disagrees with the raw rows. Plain INSERTs
+            // succeeded only if every point was new, so adding them is exact; MERGEs may have
+            // replaced stored points, so their minutes are rebuilt from the raw rows.
+            if (sql == inserts) {
+                H2Rollup.add(writeConnection, byMeasurement);
+            } else {
+                H2Rollup.rebuild(writeConnection, byMeasurement);
+            }
             writeConnection.commit();
         } catch (SQLException e) {
             try {
@@ -296,6 +319,9 @@ public final class H2Store implements StoreBackend {
                         deleted += del.executeUpdate();
                     }
                 }
+                // After the raw rows: a crash in between leaves rollup minutes before the cut-off
+                // until the purge at the next opening removes them.
+                H2Rollup.purge(writeConnection, cutoff);
             } catch (SQLException e) {
                 throw new StoreQueryException("embedded store purge failed: " + e.getMessage(), e);
             }
@@ -384,39 +410,79 @@ public final class H2Store implements StoreBackend {
     @Override
     public Map<String, List<Bucket>> buckets(SeriesRef s, Instant from, Instant to, Duration width) {
         long fromMs = from.toEpochMilli();
+        long toMs = to.toEpochMilli();
         long widthMs = width.toMillis();
         if (widthMs < 1) {
             throw new IllegalArgumentException("bucket width " + width + " must be at least 1 ms");
         }
+        int n = s.fields().size();
+        // Per bucket index: for each field count, sum, min, max.
+        java.util.TreeMap<Long, double[]> acc = new java.util.TreeMap<>();
+        long rawFrom = fromMs;
+        if (rollupQueries && s.measurement() == Measurement.CYCLE && H2Rollup.CYCLE_FIELDS.containsAll(s.fields())
+                && widthMs % H2Rollup.MINUTE_MS == 0 && H2Rollup.minuteOf(fromMs) == fromMs) {
+            // Whole minutes from the rollup (each lies in one bucket), the last partial minute raw.
+            long wholeTo = Math.max(fromMs, H2Rollup.minuteOf(toMs));
+            rollupBuckets(s, fromMs, wholeTo, widthMs, acc);
+            rawFrom = wholeTo;
+        }
+        if (rawFrom < toMs) {
+            rawBuckets(s, fromMs, rawFrom, toMs, widthMs, acc);
+        }
+        Map<String, List<Bucket>> out = new LinkedHashMap<>();
+        s.fields().forEach(f -> out.put(f, new ArrayList<>()));
+        for (Map.Entry<Long, double[]> e : acc.entrySet()) {
+            Instant start = Instant.ofEpochMilli(fromMs + e.getKey() * widthMs);
+            double[] a = e.getValue();
+            for (int i = 0; i < n; i++) {
+                long count = (long) a[4 * i];
+                if (count > 0) {
+                    out.get(s.fields().get(i)).add(new Bucket(start, a[4 * i + 1] / count, a[4 * i + 2],
+                            a[4 * i + 3], count));
+                }
+            }
+        }
+        return out;
+    }
+
+    private static double[] bucketAcc(java.util.TreeMap<Long, double[]> acc, long index, int n) {
+        double[] a = acc.get(index);
+        if (a == null) {
+            a = new double[4 * n];
+            for (int k = 0; k < n; k++) {
+                a[4 * k + 2] = Double.POSITIVE_INFINITY;
+                a[4 * k + 3] = Double.NEGATIVE_INFINITY;
+            }
+            acc.put(index, a);
+        }
+        return a;
+    }
+
+    /** Adds the raw rows in [rawFrom, to) into buckets aligned to {@code fromMs}. */
+    private void rawBuckets(SeriesRef s, long fromMs, long rawFrom, long toMs, long widthMs,
+            java.util.TreeMap<Long, double[]> acc) {
         int n = s.fields().size();
         StringBuilder sql = new StringBuilder("SELECT ").append(q("ts"));
         for (String f : s.fields()) {
             sql.append(", ").append(q(f));
         }
         sql.append(" FROM ").append(q(s.measurement().measurementName())).append(" WHERE ").append(unitRange());
-        List<Object> params = new ArrayList<>(List.of(s.site(), s.unit(), fromMs, to.toEpochMilli()));
+        List<Object> params = new ArrayList<>(List.of(s.site(), s.unit(), rawFrom, toMs));
         if (s.measurement().hasIdTag()) {
             sql.append(" AND ").append(q(s.measurement().idTag())).append(" = ?");
             params.add(s.id());
         }
-        return query(sql.toString(), rs -> {
-            // Per bucket index: for each field count, sum, min, max.
-            java.util.TreeMap<Long, double[]> acc = new java.util.TreeMap<>();
+        query(sql.toString(), rs -> {
             while (rs.next()) {
                 long index = (rs.getLong(1) - fromMs) / widthMs;
-                double[] a = acc.get(index);
+                double[] a = null;
                 for (int i = 0; i < n; i++) {
                     double v = rs.getDouble(2 + i);
                     if (rs.wasNull()) {
                         continue;
                     }
                     if (a == null) {
-                        a = new double[4 * n];
-                        for (int k = 0; k < n; k++) {
-                            a[4 * k + 2] = Double.POSITIVE_INFINITY;
-                            a[4 * k + 3] = Double.NEGATIVE_INFINITY;
-                        }
-                        acc.put(index, a);
+                        a = bucketAcc(acc, index, n);
                     }
                     a[4 * i] += 1;
                     a[4 * i + 1] += v;
@@ -424,32 +490,85 @@ public final class H2Store implements StoreBackend {
                     a[4 * i + 3] = Math.max(a[4 * i + 3], v);
                 }
             }
-            Map<String, List<Bucket>> out = new LinkedHashMap<>();
-            s.fields().forEach(f -> out.put(f, new ArrayList<>()));
-            for (Map.Entry<Long, double[]> e : acc.entrySet()) {
-                Instant start = Instant.ofEpochMilli(fromMs + e.getKey() * widthMs);
-                double[] a = e.getValue();
+            return null;
+        }, params.toArray());
+    }
+
+    /** Adds the cycle rollup's minutes in [fromMs, toMs) (both whole minutes) into buckets. */
+    private void rollupBuckets(SeriesRef s, long fromMs, long toMs, long widthMs, java.util.TreeMap<Long, double[]> acc) {
+        if (toMs <= fromMs) {
+            return;
+        }
+        int n = s.fields().size();
+        StringBuilder sql = new StringBuilder("SELECT ").append(q("minute"));
+        for (String f : s.fields()) {
+            for (String a : List.of("count", "sum", "min", "max")) {
+                sql.append(", ").append(H2Rollup.col(f, a));
+            }
+        }
+        sql.append(" FROM ").append(q(H2Rollup.CYCLE_TABLE)).append(" WHERE ").append(q("site")).append(" = ? AND ")
+                .append(q("unit")).append(" = ? AND ").append(q("minute")).append(" >= ? AND ").append(q("minute"))
+                .append(" < ?");
+        query(sql.toString(), rs -> {
+            while (rs.next()) {
+                long index = (rs.getLong(1) - fromMs) / widthMs;
+                double[] a = null;
                 for (int i = 0; i < n; i++) {
-                    long count = (long) a[4 * i];
-                    if (count > 0) {
-                        out.get(s.fields().get(i)).add(new Bucket(start, a[4 * i + 1] / count, a[4 * i + 2],
-                                a[4 * i + 3], count));
+                    long count = rs.getLong(2 + 4 * i);
+                    if (count == 0) {
+                        continue;
                     }
+                    if (a == null) {
+                        a = bucketAcc(acc, index, n);
+                    }
+                    a[4 * i] += count;
+                    a[4 * i + 1] += rs.getDouble(3 + 4 * i);
+                    a[4 * i + 2] = Math.min(a[4 * i + 2], rs.getDouble(4 + 4 * i));
+                    a[4 * i + 3] = Math.max(a[4 * i + 3], rs.getDouble(5 + 4 * i));
                 }
             }
-            return out;
-        }, params.toArray());
+            return null;
+        }, s.site(), s.unit(), fromMs, toMs);
     }
 
     @Override
     public List<ClosureStats> closureStats(String site, String unit, Instant from, Instant to) {
-        return query("SELECT " + q("closure") + ", " + q("z") + ", " + q("residual_W") + " FROM " + q("closure")
+        long fromMs = from.toEpochMilli();
+        long toMs = to.toEpochMilli();
+        // Per id: count, sum of residuals, sum of z, min z, max z, count outside.
+        Map<String, double[]> acc = new java.util.TreeMap<>();
+        long wholeFrom = H2Rollup.minuteOf(fromMs) == fromMs ? fromMs : H2Rollup.minuteOf(fromMs) + H2Rollup.MINUTE_MS;
+        long wholeTo = H2Rollup.minuteOf(toMs);
+        if (rollupQueries && wholeFrom < wholeTo) {
+            // The partial minutes at either end raw, the whole minutes between them from the rollup.
+            if (fromMs < wholeFrom) {
+                rawClosures(site, unit, fromMs, wholeFrom, acc);
+            }
+            rollupClosures(site, unit, wholeFrom, wholeTo, acc);
+            if (wholeTo < toMs) {
+                rawClosures(site, unit, wholeTo, toMs, acc);
+            }
+        } else {
+            rawClosures(site, unit, fromMs, toMs, acc);
+        }
+        List<ClosureStats> out = new ArrayList<>(acc.size());
+        for (Map.Entry<String, double[]> e : acc.entrySet()) {
+            double[] a = e.getValue();
+            out.add(new ClosureStats(e.getKey(), (long) a[0], a[1] / a[0], a[2] / a[0], a[3], a[4], (long) a[5]));
+        }
+        return out;
+    }
+
+    private static double[] closureAcc(Map<String, double[]> acc, String id) {
+        return acc.computeIfAbsent(id, k -> new double[] {0, 0, 0, Double.POSITIVE_INFINITY, Double.NEGATIVE_INFINITY,
+            0});
+    }
+
+    private void rawClosures(String site, String unit, long fromMs, long toMs, Map<String, double[]> acc) {
+        query("SELECT " + q("closure") + ", " + q("z") + ", " + q("residual_W") + " FROM " + q("closure")
                 + " WHERE " + unitRange(), rs -> {
-                    // Per id: count, sum of residuals, sum of z, min z, max z, count outside.
-                    Map<String, double[]> acc = new java.util.TreeMap<>();
                     while (rs.next()) {
-                        double[] a = acc.computeIfAbsent(rs.getString(1), k -> new double[] {
-                            0, 0, 0, Double.POSITIVE_INFINITY, Double.NEGATIVE_INFINITY, 0});
+                        double[] a = closureAcc(acc, rs.getString(1));
                         double z = rs.getDouble(2);
                         a[0] += 1;
                         a[1] += rs.getDouble(3);
@@ -460,14 +579,26 @@ public final class H2Store implements StoreBackend {
                             a[5] += 1;
                         }
                     }
-                    List<ClosureStats> out = new ArrayList<>(acc.size());
-                    for (Map.Entry<String, double[]> e : acc.entrySet()) {
-                        double[] a = e.getValue();
-                        out.add(new ClosureStats(e.getKey(), (long) a[0], a[1] / a[0], a[2] / a[0], a[3], a[4],
-                                (long) a[5]));
+                    return null;
+                }, site, unit, fromMs, toMs);
+    }
+
+    private void rollupClosures(String site, String unit, long fromMs, long toMs, Map<String, double[]> acc) {
+        query("SELECT " + q("closure") + ", " + q("count") + ", " + q("residual_W_sum") + ", " + q("z_sum") + ", "
+                + q("z_min") + ", " + q("z_max") + ", " + q("outside_count") + " FROM " + q(H2Rollup.CLOSURE_TABLE)
+                + " WHERE " + q("site") + " = ? AND " + q("unit") + " = ? AND " + q("minute") + " >= ? AND "
+                + q("minute") + " < ?", rs -> {
+                    while (rs.next()) {
+                        double[] a = closureAcc(acc, rs.getString(1));
+                        a[0] += rs.getLong(2);
+                        a[1] += rs.getDouble(3);
+                        a[2] += rs.getDouble(4);
+                        a[3] = Math.min(a[3], rs.getDouble(5));
+                        a[4] = Math.max(a[4], rs.getDouble(6));
+                        a[5] += rs.getLong(7);
                     }
-                    return out;
-                }, site, unit, from.toEpochMilli(), to.toEpochMilli());
+                    return null;
+                }, site, unit, fromMs, toMs);
     }
 
     @Override

@@ -31,8 +31,11 @@ import org.steamtally.calc.cycle.UnitResult;
  * <pre>
  * StoreLoadDriver h2 UNITS SECONDS             # records of UNITS units at 1 Hz for SECONDS simulated seconds
  * StoreLoadDriver influxdb URL UNITS SECONDS
- * StoreLoadDriver shift [DIR]                  # 8 h at 1 Hz for one unit, then shift summaries;
- *                                              # with DIR, the data of an earlier run there
+ * StoreLoadDriver shift [DIR [ROUNDS [FIRST]]] # 8 h at 1 Hz for one unit, then shift summaries;
+ *                                              # with DIR, the data of an earlier run there; ROUNDS
+ *                                              # (default 3) reopenings each from raw rows and from
+ *                                              # the per-minute rollups, alternating, FIRST (raw or
+ *                                              # rollup, default raw) going first
  * </pre>
  */
 public final class StoreLoadDriver {
@@ -104,7 +107,8 @@ public final class StoreLoadDriver {
                     influx.query(new org.influxdb.dto.Query("DROP DATABASE \"" + db + "\"", null, true));
                 }
             }
-            case "shift" -> shift(args.length > 1 ? Path.of(args[1]) : null);
+            case "shift" -> shift(args.length > 1 ? Path.of(args[1]) : null,
+                    args.length > 2 ? Integer.parseInt(args[2]) : 3, args.length > 3 && args[3].equals("rollup"));
             default -> throw new IllegalArgumentException("usage: h2 UNITS SECONDS | influxdb URL UNITS SECONDS"
                     + " | shift; got " + Arrays.toString(args));
         }
@@ -145,19 +149,38 @@ public final class StoreLoadDriver {
         }
     }
 
-    /** 8 hours at 1 Hz of one unit, then shift summaries: first after reopening, then warm. */
-    private static void shift(Path existing) throws Exception {
+    /**
+     * 8 hours at 1 Hz of one unit, then shift summaries: first after reopening, then warm; in each
+     * round once from the raw rows and once from the rollups (which goes first alternates), so that
+     * both see the same machine load.
+     */
+    private static void shift(Path existing, int rounds, boolean rollupFirst) throws Exception {
         Path dir = existing != null ? existing : Files.createTempDirectory("steamtally-load-shift");
         Duration eight = Duration.ofHours(8);
         if (existing == null) {
             load(dir, eight);
         }
-        summaries(dir, eight);
+        List<double[]> raw = new ArrayList<>();
+        List<double[]> rollup = new ArrayList<>();
+        for (int r = 0; r < rounds; r++) {
+            for (int m = 0; m < 2; m++) {
+                boolean useRollup = (r + m + (rollupFirst ? 1 : 0)) % 2 == 1;
+                (useRollup ? rollup : raw).add(summaries(dir, eight, useRollup));
+            }
+        }
+        System.out.printf("medians over %d rounds, ms: first after reopening raw %.1f, rollup %.1f;"
+                + " warm median raw %.1f, rollup %.1f%n", rounds, median(raw, 0), median(rollup, 0),
+                median(raw, 2), median(rollup, 2));
+    }
+
+    private static double median(List<double[]> runs, int column) {
+        double[] v = runs.stream().mapToDouble(a -> a[column]).sorted().toArray();
+        return v.length % 2 == 1 ? v[v.length / 2] : (v[v.length / 2 - 1] + v[v.length / 2]) / 2;
     }
 
     private static void load(Path dir, Duration eight) throws Exception {
-        // Two minutes beyond the shift, so that windows shifted by up to a minute still hold 8 h of data.
-        int seconds = (int) eight.plusMinutes(2).toSeconds();
+        // 22 minutes beyond the shift, so that windows shifted by up to 20 minutes still hold 8 h of data.
+        int seconds = (int) eight.plusMinutes(22).toSeconds();
         long t0 = System.nanoTime();
         try (H2Store h2 = H2Store.open(dir.resolve("data"), Duration.ofDays(3650), Duration.ofHours(1),
                 Clock.systemUTC())) {
@@ -187,19 +210,21 @@ public final class StoreLoadDriver {
         System.out.println("data in " + dir);
     }
 
-    private static void summaries(Path dir, Duration eight) throws Exception {
+    /** @return first after reopening ms and CPU ms, warm median ms and CPU ms, warm max ms */
+    private static double[] summaries(Path dir, Duration eight, boolean useRollup) throws Exception {
         // CPU time of the whole process: the summary's queries run in two threads.
         com.sun.management.OperatingSystemMXBean os = (com.sun.management.OperatingSystemMXBean)
                 java.lang.management.ManagementFactory.getOperatingSystemMXBean();
         try (SpooledStore store = SpooledStore.open(H2Store.open(dir.resolve("data"), Duration.ofDays(3650),
-                Duration.ofHours(1), Clock.systemUTC()), SpoolSettings.forNominalRate(dir.resolve("spool"), 100,
+                Duration.ofHours(1), Clock.systemUTC(), useRollup), SpoolSettings.forNominalRate(dir.resolve("spool"), 100,
                 300), new SimpleMeterRegistry(), StoreListener.NONE, Clock.systemUTC())) {
             ShiftSummary first = null;
             double[] ms = new double[21];
             double[] cpu = new double[21];
             for (int i = 0; i < ms.length; i++) {
-                // A new window each time (shifted by i seconds), so H2 cannot answer from its result cache.
-                Instant start = START.plusSeconds(i);
+                // A new window each time (shifted by i minutes, as shift starts are whole minutes), so
+                // H2 cannot answer from its result cache.
+                Instant start = START.plus(Duration.ofMinutes(i));
                 Shift shift = new Shift(LocalDate.of(2026, 11, 2), "bench", start, start.plus(eight));
                 long s = System.nanoTime();
                 long c = os.getProcessCpuTime();
@@ -214,12 +239,15 @@ public final class StoreLoadDriver {
             double[] warmCpu = Arrays.copyOfRange(cpu, 1, cpu.length);
             Arrays.sort(warm);
             Arrays.sort(warmCpu);
-            System.out.printf("8-hour shift summary from H2: first after reopening %.1f ms (CPU %.1f ms); warm"
-                    + " median %.1f ms (CPU %.1f ms), max %.1f ms over %d shifted windows%n", ms[0], cpu[0],
+            System.out.printf("8-hour shift summary from H2 (%s): first after reopening %.1f ms (CPU %.1f ms); warm"
+                    + " median %.1f ms (CPU %.1f ms), max %.1f ms over %d shifted windows%n",
+                    useRollup ? "rollup" : "raw", ms[0], cpu[0],
                     warm[warm.length / 2], warmCpu[warmCpu.length / 2], warm[warm.length - 1], warm.length);
             System.out.printf("  (energy in %.1f MWh, out %.1f MWh, covered %s, %d checks, alarms active %s,"
                     + " %d suspects)%n", first.energyInMWh(), first.energyOutMWh(), first.covered(),
                     first.closures().size(), first.alarmsActive(), first.topSuspects().size());
+            return new double[] {ms[0], cpu[0], warm[warm.length / 2], warmCpu[warmCpu.length / 2],
+                warm[warm.length - 1]};
         }
     }
 }
