@@ -24,8 +24,8 @@ import org.yaml.snakeyaml.constructor.SafeConstructor;
  * The deployment files (systemd unit, Dockerfile, compose file, Mosquitto configuration) cannot be
  * run here, so they are checked for what can rot silently: every file they name exists, the jar
  * they start is the one the build makes, the three ways of starting the daemon pass it the same
- * arguments, the unit keeps its hardening, and every STEAMTALLY_* variable they use is documented
- * in docs/OPERATIONS.md.
+ * arguments, the unit keeps its hardening, every STEAMTALLY_* variable they use is documented
+ * in docs/OPERATIONS.md, and every one they or that page name is one the daemon reads.
  */
 class DeploymentFilesTest {
 
@@ -206,5 +206,74 @@ class DeploymentFilesTest {
         String server = read(root().resolve(
                 "dashboard/src/main/java/org/steamtally/dashboard/http/DashboardServer.java"));
         assertTrue(server.contains("\"" + m.group(1) + "\""), "the dashboard routes " + m.group(1));
+    }
+
+    /** The STEAMTALLY_* names in string literals of the main sources, and in the Logback configuration. */
+    private static Set<String> variablesTheDaemonReads() throws IOException {
+        Set<String> read = new TreeSet<>();
+        Pattern literal = Pattern.compile("\"(STEAMTALLY_[A-Z0-9_]+)\"");
+        for (String module : List.of("calc", "collector", "dashboard", "deploy")) {
+            Path src = root().resolve(module + "/src/main/java");
+            if (!Files.isDirectory(src)) {
+                continue;
+            }
+            try (var files = Files.walk(src)) {
+                for (Path f : files.filter(p -> p.toString().endsWith(".java")).toList()) {
+                    Matcher m = literal.matcher(read(f));
+                    while (m.find()) {
+                        read.add(m.group(1));
+                    }
+                }
+            }
+        }
+        Matcher m = Pattern.compile("\\$\\{(STEAMTALLY_[A-Z0-9_]+)").matcher(
+                read(root().resolve("deploy/src/main/resources/logback.xml")));
+        while (m.find()) {
+            read.add(m.group(1));
+        }
+        return read;
+    }
+
+    @Test
+    void everyVariableTheDeploymentFilesAndTheOperationsGuideNameIsOneTheDaemonReads() throws Exception {
+        Set<String> read = variablesTheDaemonReads();
+        assertTrue(read.containsAll(Set.of("STEAMTALLY_USERS_FILE", "STEAMTALLY_INFLUX_URL", "STEAMTALLY_HTTP_HOST",
+                "STEAMTALLY_LOG_FORMAT", "STEAMTALLY_LOG_LEVEL")), "the scan finds the daemon's variables: " + read);
+        Set<String> promised = new TreeSet<>();
+        for (String file : List.of("deploy/systemd/steamtally.env.example", "deploy/systemd/steamtally.service",
+                "deploy/docker/Dockerfile", "deploy/docker/docker-compose.yml", "docs/OPERATIONS.md")) {
+            Matcher m = ENV_NAME.matcher(read(root().resolve(file)));
+            while (m.find()) {
+                promised.add(m.group());
+            }
+        }
+        promised.removeAll(read);
+        promised.removeIf(name -> name.endsWith("_")); // a family, as in STEAMTALLY_INFLUX_*
+        assertTrue(promised.isEmpty(), "named for operators but read by no code: " + promised);
+    }
+
+    @Test
+    void theComposePlantIsTheRegenerativeExampleWithACollectorWhoseSecretsTheTemplateSets() throws Exception {
+        String plant = read(docker().resolve("plant.yaml"));
+        assertTrue(plant.contains(read(root().resolve("deploy/examples/regenerative.yaml"))),
+                "deploy/docker/plant.yaml holds the regenerative example verbatim");
+        var files = org.steamtally.deploy.daemon.DaemonConfigFiles.load(docker().resolve("plant.yaml"));
+        assertTrue(files.collector().isPresent(), "run needs the collector section");
+        String template = read(root().resolve("deploy/systemd/steamtally.env.example"));
+        Matcher env = Pattern.compile("\\{env: ([A-Za-z0-9_]+)}").matcher(plant);
+        int names = 0;
+        while (env.find()) {
+            names++;
+            assertTrue(Pattern.compile("(?m)^#?" + env.group(1) + "=").matcher(template).find(),
+                    "the env template sets " + env.group(1));
+        }
+        assertEquals(2, names, "user name and password of the broker account");
+    }
+
+    @Test
+    void healthCheckIsTheLivenessRouteAndTheImageStartsTheComposePlant() throws Exception {
+        String dockerfile = read(docker().resolve("Dockerfile"));
+        assertTrue(dockerfile.contains("http://127.0.0.1:8080/health/live"));
+        assertTrue(dockerfile.contains("COPY deploy/docker/plant.yaml /etc/steamtally/plant.yaml"));
     }
 }

@@ -4,7 +4,9 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.time.Clock;
 import java.time.Duration;
+import java.time.Instant;
 import java.util.List;
+import java.util.Optional;
 import java.util.concurrent.Callable;
 import java.util.concurrent.CountDownLatch;
 import org.steamtally.calc.plant.UnitDescription;
@@ -15,7 +17,10 @@ import org.steamtally.collector.config.MqttProtocol;
 import org.steamtally.collector.mqtt.PublisherOptions;
 import org.steamtally.collector.mqtt.ReadingPublishers;
 import org.steamtally.deploy.Launcher;
+import org.steamtally.deploy.config.LoadedScenario;
 import org.steamtally.deploy.config.PlantDescriptionException;
+import org.steamtally.deploy.config.ScenarioException;
+import org.steamtally.deploy.config.ScenarioLoader;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
@@ -27,8 +32,9 @@ import picocli.CommandLine.Spec;
         versionProvider = org.steamtally.deploy.VersionProvider.class,
         sortOptions = false,
         description = {"Publishes simulated readings of a unit (its design point, with instrument noise) to an "
-                + "MQTT broker, each stamped with the wall-clock time, until stopped. Only the shipped example "
-                + "units have a design point so far."},
+                + "MQTT broker, each stamped with the wall-clock time, until stopped; with --scenario, the "
+                + "scenario's instrument faults are applied. Only the shipped example units have a design "
+                + "point so far."},
         exitCodeListHeading = "%nExit status:%n",
         exitCodeList = {"0:stopped on request", "2:usage error, unusable configuration or broker"})
 public final class SimulateCommand implements Callable<Integer> {
@@ -45,7 +51,8 @@ public final class SimulateCommand implements Callable<Integer> {
     @Option(names = "--unit", paramLabel = "ID", description = "The unit to simulate (default: the first).")
     private String unitId;
 
-    @Option(names = "--scenario", paramLabel = "FILE", description = "A fault scenario (not read yet, see below).")
+    @Option(names = "--scenario", paramLabel = "FILE", description = "A fault scenario (docs/SIMULATOR.md); its faults start counting from now "
+                    + "unless it gives a start; its unit is the one simulated unless --unit says otherwise.")
     private Path scenario;
 
     @Option(names = "--rate", paramLabel = "HZ", defaultValue = "1",
@@ -63,11 +70,6 @@ public final class SimulateCommand implements Callable<Integer> {
     public Integer call() throws Exception {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
-        if (scenario != null) {
-            err.println("simulate: --scenario is not supported yet: this build has no scenario reader"
-                    + " (the file shape is in docs/SIMULATOR.md)");
-            return Launcher.EXIT_USAGE;
-        }
         if (!(rate > 0 && rate <= 1000)) {
             err.println("simulate: --rate " + rate + " must lie in (0, 1000] steps a second");
             return Launcher.EXIT_USAGE;
@@ -84,19 +86,16 @@ public final class SimulateCommand implements Callable<Integer> {
             err.println("simulate: " + e.getMessage());
             return Launcher.EXIT_USAGE;
         }
-        UnitDescription unit = unitId == null ? files.plant().units().get(0)
-                : files.plant().unit(unitId).orElse(null);
-        if (unit == null) {
-            err.println("simulate: no unit '" + unitId + "' in " + config);
+        Instant runStart = Clock.systemUTC().instant();
+        Prepared prepared;
+        try {
+            prepared = prepare(files, unitId, scenario, seed, runStart);
+        } catch (IllegalArgumentException e) {
+            err.println("simulate: " + e.getMessage());
             return Launcher.EXIT_USAGE;
         }
-        DesignPoint design = ExampleDesignPoints.forUnit(files.plant().siteId(), unit.id()).orElse(null);
-        if (design == null) {
-            err.println("simulate: no design point known for unit " + unit.id() + " of site "
-                    + files.plant().siteId() + "; only the shipped examples have one so far");
-            return Launcher.EXIT_USAGE;
-        }
-        Simulator simulator = Simulator.builder(TruthModel.of(unit, design)).seed(seed).build();
+        UnitDescription unit = prepared.unit();
+        Simulator simulator = prepared.simulator();
         PlantSimulation sim;
         try {
             sim = new PlantSimulation(unit, simulator, ReadingPublishers.connect(new PublisherOptions(List.of(broker),
@@ -113,9 +112,49 @@ public final class SimulateCommand implements Callable<Integer> {
         }, "steamtally-simulate-shutdown"));
         sim.startPeriodic(Duration.ofNanos((long) (1e9 / rate)));
         out.println("simulate: unit " + unit.id() + " publishing to " + broker + " at " + rate
-                + " steps a second; stop with Ctrl-C");
+                + " steps a second" + prepared.scenario().map(l -> ", scenario '" + l.scenario().name() + "' with "
+                + l.scenario().faults().size() + " faults from " + l.timeZero()).orElse("")
+                + "; stop with Ctrl-C");
         out.flush();
         stopped.await();
         return 0;
+    }
+
+    /** What {@code simulate} publishes: the unit, its simulator with the scenario's faults, the scenario read. */
+    record Prepared(UnitDescription unit, Simulator simulator, Optional<LoadedScenario> scenario) {
+    }
+
+    /**
+     * Builds the simulator of one unit of a plant description, with the faults of a scenario file when
+     * one is given; nothing is connected yet.
+     *
+     * @param unitId   the unit asked for, or null: the scenario's unit, else the first
+     * @param scenario the scenario file, or null for a fault-free run
+     * @param runStart time zero of fault starts when the scenario gives no {@code start}
+     * @throws IllegalArgumentException naming the unit or listing the scenario's problems
+     */
+    static Prepared prepare(DaemonConfigFiles files, String unitId, Path scenario, long seed, Instant runStart) {
+        Optional<LoadedScenario> loaded = Optional.empty();
+        if (scenario != null) {
+            try {
+                loaded = Optional.of(ScenarioLoader.load(scenario, files.plant(), runStart));
+            } catch (ScenarioException e) {
+                throw new IllegalArgumentException(e.getMessage(), e);
+            }
+        }
+        String wanted = unitId != null ? unitId
+                : loaded.map(LoadedScenario::unitId).orElse(files.plant().units().get(0).id());
+        if (loaded.isPresent() && !loaded.get().unitId().equals(wanted)) {
+            throw new IllegalArgumentException("--unit " + wanted + " but the scenario " + scenario
+                    + " is for unit " + loaded.get().unitId());
+        }
+        UnitDescription unit = files.plant().unit(wanted).orElseThrow(
+                () -> new IllegalArgumentException("no unit '" + wanted + "' in the plant description"));
+        DesignPoint design = ExampleDesignPoints.forUnit(files.plant().siteId(), unit.id()).orElseThrow(
+                () -> new IllegalArgumentException("no design point known for unit " + unit.id() + " of site "
+                        + files.plant().siteId() + "; only the shipped examples have one so far"));
+        Simulator.Builder builder = Simulator.builder(TruthModel.of(unit, design)).seed(seed);
+        loaded.ifPresent(l -> builder.scenario(l.scenario()));
+        return new Prepared(unit, builder.build(), loaded);
     }
 }
