@@ -201,6 +201,35 @@
   function overlaps(a, b, pad) {
     return a.x < b.x + b.w + pad && b.x < a.x + a.w + pad && a.y < b.y + b.h + pad && b.y < a.y + a.h + pad;
   }
+  // Where a state's label goes: on its line or just beside it (either side) near the middle, else the
+  // free place nearest the line's middle found on a coarse grid; the frame may grow downwards for it,
+  // at a penalty, so that a label never covers a component or another label. Returns the box with the
+  // point on the line it belongs to (ax, ay), for a leader line when the two are apart.
+  function placeLabel(pa, pb, w, h, taken) {
+    const free = c => !taken.some(o => overlaps(c, o, 6));
+    const at = (cx, cy, ax, ay) => ({ x: Math.min(Math.max(cx - w / 2, 2), W - w - 2), y: Math.max(cy - h / 2, 2), w, h, ax, ay });
+    const dx = pb.x - pa.x, dy = pb.y - pa.y, len = Math.hypot(dx, dy) || 1;
+    const nx = -dy / len, ny = dx / len;
+    // Centre distance at which the box's edge clears the line by a few pixels.
+    const off = Math.abs(nx) * w / 2 + Math.abs(ny) * h / 2 + 8;
+    for (const t of [0.5, 0.4, 0.6, 0.3, 0.7, 0.22, 0.78]) {
+      const lx = pa.x + dx * t, ly = pa.y + dy * t;
+      for (const c of [at(lx, ly, lx, ly), at(lx + nx * off, ly + ny * off, lx, ly), at(lx - nx * off, ly - ny * off, lx, ly)]) {
+        if (free(c)) return c;
+      }
+    }
+    const mx = pa.x + dx / 2, my = pa.y + dy / 2;
+    let best = null, bestCost = Infinity;
+    for (let y = 2; y < H + 900; y += 12) {
+      for (let x = 2; x <= W - w - 2; x += 12) {
+        const cost = Math.hypot(x + w / 2 - mx, y + h / 2 - my) + (y + h > H ? 400 : 0);
+        if (cost >= bestCost) continue;
+        const c = { x, y, w, h, ax: mx, ay: my };
+        if (free(c)) { best = c; bestCost = cost; }
+      }
+    }
+    return best || at(mx, my, mx, my);
+  }
   function dutyText(rc) {
     if (!state.result) return { text: '', bad: false };
     if (!rc || !rc.valid) return { text: 'INVALID', bad: true };
@@ -221,7 +250,7 @@
     const comps = state.unitDesc.components.filter(c => c.type !== 'generator');
     const placed = layoutComponents(comps);
     const sizes = new Map();
-    const gComp = svg('g');
+    const gComp = svg('g', { class: 'sch-components' });
     for (const p of placed.values()) sizes.set(p.c.id, componentShape(gComp, p));
     // Rectangles that state labels must keep clear of: the components and their text.
     const taken = [...placed.values()].map(p => {
@@ -232,7 +261,8 @@
     const resultComps = new Map((state.result ? state.result.components : []).map(c => [c.id, c]));
     const isStale = stale();
     const u = sys();
-    const gFlow = svg('g'), gLabels = svg('g');
+    const gFlow = svg('g'), gLabels = svg('g', { class: 'sch-labels' }), gLeaders = svg('g');
+    let bottom = H;
     const states = state.unitDesc.states.filter(s => !s.reference);
     for (const sd of states) {
       const from = comps.find(c => c.outlets.includes(sd.id));
@@ -257,18 +287,17 @@
         if (isStale) lines.push(['STALE', 'invalid']);
       }
       const boxW = 250, boxH = 24 + 19 * lines.length;
-      // The label slides along its line to the first place clear of components and earlier labels.
-      let box = null;
-      for (const t of [0.5, 0.4, 0.6, 0.3, 0.7, 0.22, 0.78, 0.45, 0.55, 0.35, 0.65]) {
-        const lx = pa.x + (pb.x - pa.x) * t, ly = pa.y + (pb.y - pa.y) * t;
-        const cand = { x: Math.min(Math.max(lx - boxW / 2, 2), W - boxW - 2), y: Math.min(Math.max(ly - boxH / 2, 2), H - boxH - 2), w: boxW, h: boxH };
-        if (!taken.some(o => overlaps(cand, o, 4))) { box = cand; break; }
-        if (!box) box = cand;
-      }
+      const box = placeLabel(pa, pb, boxW, boxH, taken);
       taken.push(box);
-      gLabels.append(svg('rect', { x: box.x, y: box.y, width: boxW, height: boxH, rx: 3, class: 'sch-label-box' + (ok && !isStale ? '' : ' invalid') }));
-      gLabels.append(svg('text', { x: box.x + 7, y: box.y + 17, class: 'sch-label-id' }, sd.id));
-      lines.forEach((ln, j) => gLabels.append(svg('text', { x: box.x + 7, y: box.y + 37 + 19 * j, class: 'sch-label' + (ln[1] ? ' ' + ln[1] : '') }, ln[0])));
+      const gl = svg('g', { class: 'sch-state-label' });
+      // A label that had to move off its line points back to it.
+      const ex = Math.min(Math.max(box.ax, box.x), box.x + boxW), ey = Math.min(Math.max(box.ay, box.y), box.y + boxH);
+      if (Math.hypot(ex - box.ax, ey - box.ay) > 4) gLeaders.append(svg('line', { x1: box.ax, y1: box.ay, x2: ex, y2: ey, class: 'sch-leader' }));
+      gl.append(svg('rect', { x: box.x, y: box.y, width: boxW, height: boxH, rx: 3, class: 'sch-label-box' + (ok && !isStale ? '' : ' invalid') }));
+      gl.append(svg('text', { x: box.x + 7, y: box.y + 17, class: 'sch-label-id' }, sd.id));
+      lines.forEach((ln, j) => gl.append(svg('text', { x: box.x + 7, y: box.y + 37 + 19 * j, class: 'sch-label' + (ln[1] ? ' ' + ln[1] : '') }, ln[0])));
+      gLabels.append(gl);
+      bottom = Math.max(bottom, box.y + boxH);
     }
     root.append(gFlow, gComp);
     for (const p of placed.values()) {
@@ -284,11 +313,16 @@
         if (duty.text) root.append(svg('text', { x: p.x, y: p.y + 29, 'text-anchor': 'middle', class: dutyClass }, duty.text));
       }
     }
-    root.append(gLabels);
+    root.append(gLeaders, gLabels);
+    // Labels that found no room inside the usual frame went below it; the drawing grows to hold them,
+    // and the stale band gets a strip of its own so that it covers nothing.
+    let height = Math.max(H, Math.ceil(bottom) + 6);
     if (isStale && state.result) {
-      root.append(svg('rect', { x: W / 2 - 230, y: H - 44, width: 460, height: 40, class: 'sch-stale-band' }));
-      root.append(svg('text', { x: W / 2, y: H - 13, 'text-anchor': 'middle', class: 'sch-stale' }, 'STALE — NOT CURRENT'));
+      height = Math.max(height, bottom + 52);
+      root.append(svg('rect', { x: W / 2 - 230, y: height - 44, width: 460, height: 40, class: 'sch-stale-band' }));
+      root.append(svg('text', { x: W / 2, y: height - 13, 'text-anchor': 'middle', class: 'sch-stale' }, 'STALE — NOT CURRENT'));
     }
+    root.setAttribute('viewBox', `0 0 ${W} ${height}`);
   }
 
   // ------------------------------------------------------------------ T–s diagram

@@ -144,6 +144,30 @@ class DashboardPageBrowserTest {
         Files.copy(shot, SCREENSHOTS.resolve(name + ".png"), StandardCopyOption.REPLACE_EXISTING);
     }
 
+    /**
+     * Asks the browser for the drawn boxes of the schematic's state labels and of the components with
+     * their names and duties, and fails when any label covers one of them or another label.
+     */
+    static void assertSchematicLabelsCoverNothing(WebDriver driver, int expectedLabels) {
+        String found = (String) ((JavascriptExecutor) driver).executeScript(LABEL_OVERLAPS);
+        int sep = found.indexOf(':');
+        assertEquals(expectedLabels, Integer.parseInt(found.substring(0, sep)), "state labels drawn");
+        assertEquals("", found.substring(sep + 1), "schematic labels covering something");
+    }
+
+    /** Lists each overlap in words, after the number of labels checked. */
+    private static final String LABEL_OVERLAPS = "const box = e => e.getBBox();"
+            + "const hit = (a, b) => a.x < b.x + b.width && b.x < a.x + a.width && a.y < b.y + b.height && b.y < a.y + a.height;"
+            + "const name = e => e.textContent || e.tagName;"
+            + "const labels = [...document.querySelectorAll('#schematic g.sch-state-label')];"
+            + "const parts = [...document.querySelectorAll('#schematic .sch-box, #schematic .sch-title, #schematic .sch-sub, #schematic .sch-duty')];"
+            + "const out = [];"
+            + "labels.forEach((l, i) => { const a = box(l.querySelector('rect')), id = l.querySelector('.sch-label-id').textContent;"
+            + "  parts.forEach(c => { if (hit(a, box(c))) out.push(id + ' covers ' + name(c)); });"
+            + "  labels.slice(i + 1).forEach(m => { if (hit(a, box(m.querySelector('rect')))) out.push(id + ' covers ' + m.querySelector('.sch-label-id').textContent); });"
+            + "  const g = l.getBBox(); if (g.width > a.width + 1 || g.height > a.height + 1) out.push(id + ' text runs out of its box'); });"
+            + "return labels.length + ':' + out.join('; ');";
+
     private static void assertNoScriptRan() {
         assertThrows(NoAlertPresentException.class, () -> driver.switchTo().alert(),
                 "markup from data must never run");
@@ -172,6 +196,8 @@ class DashboardPageBrowserTest {
                 .toList();
         assertTrue(labels.contains("main_steam"), labels.toString());
         assertTrue(text("#schematic").contains("boiler"));
+        // One label per flow line drawn.
+        assertSchematicLabelsCoverNothing(driver, driver.findElements(By.cssSelector("#schematic line.sch-flow")).size());
         screenshot("cycle-si");
     }
 

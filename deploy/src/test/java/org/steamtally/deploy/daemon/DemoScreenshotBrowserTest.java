@@ -1,5 +1,6 @@
 package org.steamtally.deploy.daemon;
 
+import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 import static org.junit.jupiter.api.Assertions.fail;
 
@@ -17,6 +18,7 @@ import org.junit.jupiter.api.Assumptions;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.openqa.selenium.By;
+import org.openqa.selenium.JavascriptExecutor;
 import org.openqa.selenium.OutputType;
 import org.openqa.selenium.StaleElementReferenceException;
 import org.openqa.selenium.TakesScreenshot;
@@ -78,6 +80,10 @@ class DemoScreenshotBrowserTest {
             // A reheat-regenerative unit of this size runs at about 38 % to 45 % (common practice); the
             // example's design point gives 41.3 % (docs/SIMULATOR.md).
             assertTrue(percent > 30 && percent < 50, "thermal efficiency shown: " + eta);
+            // The example has about twenty flowing states, each a line with a label on the schematic.
+            int flows = driver.findElements(By.cssSelector("#schematic line.sch-flow")).size();
+            assertTrue(flows >= 15, "flow lines drawn: " + flows);
+            assertSchematicLabelsCoverNothing(driver, flows);
             Path shot = ((TakesScreenshot) driver).getScreenshotAs(OutputType.FILE).toPath();
             Files.copy(shot, SCREENSHOTS.resolve("demo-main.png"), StandardCopyOption.REPLACE_EXISTING);
         } finally {
@@ -89,4 +95,28 @@ class DemoScreenshotBrowserTest {
             }
         }
     }
+
+    /**
+     * Asks the browser for the drawn boxes of the schematic's state labels and of the components with
+     * their names and duties, and fails when any label covers one of them or another label.
+     */
+    static void assertSchematicLabelsCoverNothing(WebDriver driver, int expectedLabels) {
+        String found = (String) ((JavascriptExecutor) driver).executeScript(LABEL_OVERLAPS);
+        int sep = found.indexOf(':');
+        assertEquals(expectedLabels, Integer.parseInt(found.substring(0, sep)), "state labels drawn");
+        assertEquals("", found.substring(sep + 1), "schematic labels covering something");
+    }
+
+    /** Lists each overlap in words, after the number of labels checked. */
+    private static final String LABEL_OVERLAPS = "const box = e => e.getBBox();"
+            + "const hit = (a, b) => a.x < b.x + b.width && b.x < a.x + a.width && a.y < b.y + b.height && b.y < a.y + a.height;"
+            + "const name = e => e.textContent || e.tagName;"
+            + "const labels = [...document.querySelectorAll('#schematic g.sch-state-label')];"
+            + "const parts = [...document.querySelectorAll('#schematic .sch-box, #schematic .sch-title, #schematic .sch-sub, #schematic .sch-duty')];"
+            + "const out = [];"
+            + "labels.forEach((l, i) => { const a = box(l.querySelector('rect')), id = l.querySelector('.sch-label-id').textContent;"
+            + "  parts.forEach(c => { if (hit(a, box(c))) out.push(id + ' covers ' + name(c)); });"
+            + "  labels.slice(i + 1).forEach(m => { if (hit(a, box(m.querySelector('rect')))) out.push(id + ' covers ' + m.querySelector('.sch-label-id').textContent); });"
+            + "  const g = l.getBBox(); if (g.width > a.width + 1 || g.height > a.height + 1) out.push(id + ' text runs out of its box'); });"
+            + "return labels.length + ':' + out.join('; ');";
 }
