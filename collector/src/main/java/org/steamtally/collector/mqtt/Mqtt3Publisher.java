@@ -45,7 +45,7 @@ final class Mqtt3Publisher extends WindowedPublisher {
 
     @Override
     protected void connectClient() throws MqttException {
-        client.connect(connectOptions).waitForCompletion(ReconnectingSource.HANDSHAKE_TIMEOUT_S * 1000L);
+        client.connect(connectOptions).waitForCompletion(ReconnectingSource.HANDSHAKE_TIMEOUT_MS);
     }
 
     @Override
@@ -67,14 +67,10 @@ final class Mqtt3Publisher extends WindowedPublisher {
     }
 
     @Override
-    public void close() {
-        try {
-            if (client.isConnected()) {
-                client.disconnect().waitForCompletion(ReconnectingSource.HANDSHAKE_TIMEOUT_S * 1000L);
-            }
-            client.close();
-        } catch (MqttException | RuntimeException e) {
-            // Nothing more to release.
+    protected void disconnectAndCloseClient() throws MqttException {
+        if (client.isConnected()) {
+            client.disconnect().waitForCompletion(ReconnectingSource.HANDSHAKE_TIMEOUT_MS);
         }
+        client.close();
     }
 }

@@ -1,5 +1,6 @@
 package org.steamtally.collector.mqtt;
 
+import java.util.Arrays;
 import java.util.List;
 import java.util.function.UnaryOperator;
 import org.eclipse.paho.client.mqttv3.IMqttActionListener;
@@ -25,6 +26,17 @@ final class Mqtt3Source extends ReconnectingSource {
 
     private final MqttAsyncClient client;
     private final MqttConnectOptions options;
+    private final IMqttActionListener sideRelease = new IMqttActionListener() {
+        @Override
+        public void onSuccess(IMqttToken asyncActionToken) {
+            sideDone();
+        }
+
+        @Override
+        public void onFailure(IMqttToken asyncActionToken, Throwable exception) {
+            sideDone();
+        }
+    };
 
     Mqtt3Source(CollectorSettings settings, List<String> filters, ConnectionWatch watch, Backoff backoff,
                 UnaryOperator<String> environment) throws MqttException {
@@ -46,12 +58,12 @@ final class Mqtt3Source extends ReconnectingSource {
 
     @Override
     protected void connectAndSubscribe() throws Exception {
-        client.connect(options).waitForCompletion(HANDSHAKE_TIMEOUT_S * 1000L);
+        client.connect(options).waitForCompletion(HANDSHAKE_TIMEOUT_MS);
         List<String> subscribed = subscribedFilters();
         int[] qos = new int[subscribed.size()];
-        java.util.Arrays.fill(qos, QOS_AT_LEAST_ONCE);
+        Arrays.fill(qos, QOS_AT_LEAST_ONCE);
         IMqttToken token = client.subscribe(subscribed.toArray(new String[0]), qos);
-        token.waitForCompletion(HANDSHAKE_TIMEOUT_S * 1000L);
+        token.waitForCompletion(HANDSHAKE_TIMEOUT_MS);
         int[] granted = token.getGrantedQos();
         for (int i = 0; granted != null && i < granted.length; i++) {
             if (granted[i] == FAILURE) {
@@ -62,55 +74,33 @@ final class Mqtt3Source extends ReconnectingSource {
     }
 
     @Override
-    protected void publishAsync(String topic, byte[] payload, int qos) throws Exception {
+    protected void publishAsync(String topic, byte[] payload, int qos) throws MqttException {
         MqttMessage message = new MqttMessage(payload);
         message.setQos(qos);
-        client.publish(topic, message, null, new IMqttActionListener() {
-            @Override
-            public void onSuccess(IMqttToken asyncActionToken) {
-                sideWindow.release();
-            }
-
-            @Override
-            public void onFailure(IMqttToken asyncActionToken, Throwable exception) {
-                sideWindow.release();
-            }
-        });
+        client.publish(topic, message, null, sideRelease);
     }
 
     @Override
-    protected void disconnectQuietly() {
-        try {
-            if (client.isConnected()) {
-                client.disconnect().waitForCompletion(HANDSHAKE_TIMEOUT_S * 1000L);
-            }
-        } catch (MqttException | RuntimeException e) {
-            // Gone already; nothing else to release here.
+    protected void disconnect() throws MqttException {
+        if (client.isConnected()) {
+            client.disconnect().waitForCompletion(HANDSHAKE_TIMEOUT_MS);
         }
     }
 
     @Override
-    protected void closeClient() {
-        try {
-            client.close();
-        } catch (MqttException | RuntimeException e) {
-            // Closing a client that never connected may complain; it holds nothing more.
-        }
+    protected void closeClient() throws MqttException {
+        client.close();
     }
 
     @Override
-    protected String describeServer() {
-        String uri = client.getCurrentServerURI();
-        return uri == null ? String.join(",", settings.brokerUrls()) : uri;
+    protected String currentServerUri() {
+        return client.getCurrentServerURI();
     }
 
     private final class Callback implements MqttCallbackExtended {
         @Override
         public void messageArrived(String topic, MqttMessage message) {
-            MessageHandler h = handler;
-            if (h != null) {
-                h.onMessage(topic, message.getPayload());
-            }
+            arrived(topic, message.getPayload());
         }
 
         @Override

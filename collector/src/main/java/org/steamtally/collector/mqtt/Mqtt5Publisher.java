@@ -45,7 +45,7 @@ final class Mqtt5Publisher extends WindowedPublisher {
     @Override
     protected void connectClient() throws MqttException {
         IMqttToken token = client.connect(connectOptions);
-        token.waitForCompletion(ReconnectingSource.HANDSHAKE_TIMEOUT_S * 1000L);
+        token.waitForCompletion(ReconnectingSource.HANDSHAKE_TIMEOUT_MS);
         // MQTT 5.0, 3.2.2.3.3: the broker says how many QoS 1 and 2 publications it takes at once.
         Integer receiveMaximum = token.getResponseProperties() == null ? null
                 : token.getResponseProperties().getReceiveMaximum();
@@ -73,14 +73,10 @@ final class Mqtt5Publisher extends WindowedPublisher {
     }
 
     @Override
-    public void close() {
-        try {
-            if (client.isConnected()) {
-                client.disconnect().waitForCompletion(ReconnectingSource.HANDSHAKE_TIMEOUT_S * 1000L);
-            }
-            client.close();
-        } catch (MqttException | RuntimeException e) {
-            // Nothing more to release.
+    protected void disconnectAndCloseClient() throws MqttException {
+        if (client.isConnected()) {
+            client.disconnect().waitForCompletion(ReconnectingSource.HANDSHAKE_TIMEOUT_MS);
         }
+        client.close();
     }
 }

@@ -24,6 +24,17 @@ final class Mqtt5Source extends ReconnectingSource {
 
     private final MqttAsyncClient client;
     private final MqttConnectionOptions options;
+    private final MqttActionListener sideRelease = new MqttActionListener() {
+        @Override
+        public void onSuccess(IMqttToken asyncActionToken) {
+            sideDone();
+        }
+
+        @Override
+        public void onFailure(IMqttToken asyncActionToken, Throwable exception) {
+            sideDone();
+        }
+    };
 
     Mqtt5Source(CollectorSettings settings, List<String> filters, ConnectionWatch watch, Backoff backoff,
                 UnaryOperator<String> environment) throws MqttException {
@@ -46,14 +57,14 @@ final class Mqtt5Source extends ReconnectingSource {
 
     @Override
     protected void connectAndSubscribe() throws Exception {
-        client.connect(options).waitForCompletion(HANDSHAKE_TIMEOUT_S * 1000L);
+        client.connect(options).waitForCompletion(HANDSHAKE_TIMEOUT_MS);
         List<String> subscribed = subscribedFilters();
         MqttSubscription[] subs = new MqttSubscription[subscribed.size()];
         for (int i = 0; i < subs.length; i++) {
             subs[i] = new MqttSubscription(subscribed.get(i), QOS_AT_LEAST_ONCE);
         }
         IMqttToken token = client.subscribe(subs);
-        token.waitForCompletion(HANDSHAKE_TIMEOUT_S * 1000L);
+        token.waitForCompletion(HANDSHAKE_TIMEOUT_MS);
         int[] codes = token.getReasonCodes();
         for (int i = 0; codes != null && i < codes.length; i++) {
             if (codes[i] >= FIRST_FAILURE_CODE) {
@@ -65,55 +76,33 @@ final class Mqtt5Source extends ReconnectingSource {
     }
 
     @Override
-    protected void publishAsync(String topic, byte[] payload, int qos) throws Exception {
+    protected void publishAsync(String topic, byte[] payload, int qos) throws MqttException {
         MqttMessage message = new MqttMessage(payload);
         message.setQos(qos);
-        client.publish(topic, message, null, new MqttActionListener() {
-            @Override
-            public void onSuccess(IMqttToken asyncActionToken) {
-                sideWindow.release();
-            }
-
-            @Override
-            public void onFailure(IMqttToken asyncActionToken, Throwable exception) {
-                sideWindow.release();
-            }
-        });
+        client.publish(topic, message, null, sideRelease);
     }
 
     @Override
-    protected void disconnectQuietly() {
-        try {
-            if (client.isConnected()) {
-                client.disconnect().waitForCompletion(HANDSHAKE_TIMEOUT_S * 1000L);
-            }
-        } catch (MqttException | RuntimeException e) {
-            // Gone already; nothing else to release here.
+    protected void disconnect() throws MqttException {
+        if (client.isConnected()) {
+            client.disconnect().waitForCompletion(HANDSHAKE_TIMEOUT_MS);
         }
     }
 
     @Override
-    protected void closeClient() {
-        try {
-            client.close();
-        } catch (MqttException | RuntimeException e) {
-            // Closing a client that never connected may complain; it holds nothing more.
-        }
+    protected void closeClient() throws MqttException {
+        client.close();
     }
 
     @Override
-    protected String describeServer() {
-        String uri = client.getCurrentServerURI();
-        return uri == null ? String.join(",", settings.brokerUrls()) : uri;
+    protected String currentServerUri() {
+        return client.getCurrentServerURI();
     }
 
     private final class Callback implements MqttCallback {
         @Override
         public void messageArrived(String topic, MqttMessage message) {
-            MessageHandler h = handler;
-            if (h != null) {
-                h.onMessage(topic, message.getPayload());
-            }
+            arrived(topic, message.getPayload());
         }
 
         @Override

@@ -25,17 +25,19 @@ abstract class ReconnectingSource implements MessageSource {
 
     /** Bounds each connect and subscribe handshake, s. */
     static final int HANDSHAKE_TIMEOUT_S = 10;
+    /** {@link #HANDSHAKE_TIMEOUT_S} in ms, as Paho's {@code waitForCompletion} takes it. */
+    static final long HANDSHAKE_TIMEOUT_MS = HANDSHAKE_TIMEOUT_S * 1000L;
     /** Dead letters and other fire-and-forget publications allowed in flight at once. */
     static final int SIDE_PUBLISH_WINDOW = 64;
     static final int QOS_AT_LEAST_ONCE = 1;
 
     protected final CollectorSettings settings;
     protected final List<String> filters;
-    protected final Semaphore sideWindow = new Semaphore(SIDE_PUBLISH_WINDOW);
+    private final Semaphore sideWindow = new Semaphore(SIDE_PUBLISH_WINDOW);
     private final ConnectionWatch watch;
     private final Backoff backoff;
     private final ScheduledExecutorService thread;
-    protected volatile MessageHandler handler;
+    private volatile MessageHandler handler;
     private volatile boolean closed;
     private long failures;
 
@@ -101,6 +103,19 @@ abstract class ReconnectingSource implements MessageSource {
         }
     }
 
+    /** Called by a subclass for each message the client receives. */
+    protected final void arrived(String topic, byte[] payload) {
+        MessageHandler h = handler;
+        if (h != null) {
+            h.onMessage(topic, payload);
+        }
+    }
+
+    /** Called by a subclass when a publication made by {@link #publishAsync} completes, either way. */
+    protected final void sideDone() {
+        sideWindow.release();
+    }
+
     /** Called by a subclass when the client reports the connection lost. */
     protected void lost(Throwable cause) {
         // Only a loss of an established connection schedules an attempt; a failed attempt schedules its own.
@@ -148,19 +163,40 @@ abstract class ReconnectingSource implements MessageSource {
             Thread.currentThread().interrupt();
         }
         disconnectQuietly();
-        closeClient();
+        try {
+            closeClient();
+        } catch (Exception e) {
+            // Closing a client that never connected may complain; it holds nothing more.
+        }
         watch.set(ConnectionState.CLOSED, Optional.empty());
+    }
+
+    private void disconnectQuietly() {
+        try {
+            disconnect();
+        } catch (Exception e) {
+            // Gone already; nothing else to release here.
+        }
+    }
+
+    /** The server connected to, or the configured list while there is none. */
+    private String describeServer() {
+        String uri = currentServerUri();
+        return uri == null ? String.join(",", settings.brokerUrls()) : uri;
     }
 
     /** Connects (blocking, bounded by {@link #HANDSHAKE_TIMEOUT_S}) and subscribes every filter at QoS 1. */
     protected abstract void connectAndSubscribe() throws Exception;
 
-    /** Publishes without waiting; must release {@link #sideWindow} once the publication completes. */
+    /** Publishes without waiting; the completion, success or failure, must call {@link #sideDone}. */
     protected abstract void publishAsync(String topic, byte[] payload, int qos) throws Exception;
 
-    protected abstract void disconnectQuietly();
+    /** Disconnects if connected, waiting at most {@link #HANDSHAKE_TIMEOUT_MS}; any exception is ignored. */
+    protected abstract void disconnect() throws Exception;
 
-    protected abstract void closeClient();
+    /** Releases the client for good; any exception is ignored. */
+    protected abstract void closeClient() throws Exception;
 
-    protected abstract String describeServer();
+    /** The server the client is connected to, or null when there is none. */
+    protected abstract String currentServerUri();
 }

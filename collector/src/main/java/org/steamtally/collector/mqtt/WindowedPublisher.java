@@ -34,6 +34,9 @@ abstract class WindowedPublisher implements ReadingPublisher {
 
     protected abstract void connectClient() throws Exception;
 
+    /** Disconnects if connected (waiting at most the handshake timeout) and releases the client for good. */
+    protected abstract void disconnectAndCloseClient() throws Exception;
+
     /** The completion callback: releases the window slot. */
     protected final void done(boolean success) {
         (success ? completed : failed).incrementAndGet();
@@ -83,6 +86,15 @@ abstract class WindowedPublisher implements ReadingPublisher {
                     throw new IllegalStateException("held publication to " + h.topic() + " refused: " + e, e);
                 }
             }
+        }
+    }
+
+    @Override
+    public void close() {
+        try {
+            disconnectAndCloseClient();
+        } catch (Exception e) {
+            // Nothing more to release.
         }
     }
 
