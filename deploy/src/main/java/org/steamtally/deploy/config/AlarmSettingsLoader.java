@@ -8,10 +8,8 @@ import java.util.HashSet;
 import java.util.LinkedHashMap;
 import java.util.LinkedHashSet;
 import java.util.List;
-import java.util.Locale;
 import java.util.Map;
 import java.util.Set;
-import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 
 import static org.steamtally.deploy.config.YamlNodes.child;
@@ -51,7 +49,9 @@ public final class AlarmSettingsLoader {
 
     private static final String MAX_SHELVE = "max_shelve";
     private static final String OVERRIDES = "overrides";
-    private static final Pattern DURATION = Pattern.compile("(\\d+(?:\\.\\d+)?)\\s*(ms|s|min|h)");
+    /** Durations as this section has always taken them, the unit in any letter case (10S, 2MIN). */
+    private static final Pattern DURATION = Pattern.compile("(\\d+(?:\\.\\d+)?)\\s*(ms|s|min|h)",
+            Pattern.CASE_INSENSITIVE);
     /** The independent measurements a closure id may name besides components (docs/RESULTS.md, closure[]). */
     private static final Set<String> CLOSURE_PARTS = Set.of("cooling_water", "motor", "fuel");
 
@@ -424,20 +424,9 @@ public final class AlarmSettingsLoader {
         }
 
         private Duration duration(Node node, String what, boolean zeroAllowed) {
-            if (node instanceof ScalarNode scalar) {
-                Matcher m = DURATION.matcher(scalar.getValue().strip().toLowerCase(Locale.ROOT));
-                if (m.matches()) {
-                    double amount = Double.parseDouble(m.group(1));
-                    double millis = amount * switch (m.group(2)) {
-                        case "ms" -> 1.0;
-                        case "s" -> 1e3;
-                        case "min" -> 60e3;
-                        default -> 3600e3;
-                    };
-                    if (millis >= 1.0 || zeroAllowed && millis == 0.0) {
-                        return Duration.ofMillis(Math.round(millis));
-                    }
-                }
+            Duration duration = YamlNodes.duration(node, DURATION, zeroAllowed);
+            if (duration != null) {
+                return duration;
             }
             problem(node, what + " must be a duration with its unit, e.g. 0s, 500ms, 10s, 2min or 8h"
                     + (zeroAllowed ? "" : ", more than zero") + ", not " + describe(node));

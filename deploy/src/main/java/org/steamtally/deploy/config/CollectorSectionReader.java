@@ -7,7 +7,6 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
-import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 
 import static org.steamtally.deploy.config.YamlNodes.describe;
@@ -280,20 +279,9 @@ public final class CollectorSectionReader {
             if (node == null) {
                 return Optional.empty();
             }
-            if (node instanceof ScalarNode scalar) {
-                Matcher m = DURATION.matcher(scalar.getValue().strip());
-                if (m.matches()) {
-                    double millis = Double.parseDouble(m.group(1)) * switch (m.group(2)) {
-                        case "ms" -> 1.0;
-                        case "s" -> 1e3;
-                        case "min" -> 60e3;
-                        case "h" -> 3600e3;
-                        default -> 86_400e3;
-                    };
-                    if (millis >= 1.0 || (zeroAllowed && millis == 0.0)) {
-                        return Optional.of(Duration.ofMillis(Math.round(millis)));
-                    }
-                }
+            Duration duration = YamlNodes.duration(node, DURATION, zeroAllowed);
+            if (duration != null) {
+                return Optional.of(duration);
             }
             problem(node, key + " must be a duration with its unit, e.g. 500ms, 5s, 2min, 1h or 1d"
                     + (zeroAllowed ? " (0s allowed)" : "") + ", not " + describe(node));

@@ -729,20 +729,9 @@ public final class PlantDescriptionLoader {
         }
 
         private Duration duration(Node node, String what) {
-            if (node instanceof ScalarNode scalar) {
-                Matcher m = DURATION.matcher(scalar.getValue().strip());
-                if (m.matches()) {
-                    double amount = Double.parseDouble(m.group(1));
-                    double millis = amount * switch (m.group(2)) {
-                        case "ms" -> 1.0;
-                        case "s" -> 1e3;
-                        case "min" -> 60e3;
-                        default -> 3600e3;
-                    };
-                    if (millis >= 1.0) {
-                        return Duration.ofMillis(Math.round(millis));
-                    }
-                }
+            Duration duration = YamlNodes.duration(node, DURATION, false);
+            if (duration != null) {
+                return duration;
             }
             problem(node, what + " must be a duration with its unit, e.g. 500ms, 5s, 2min or 1h, not " + describe(node));
             return null;

@@ -15,7 +15,6 @@ import java.util.Objects;
 import java.util.OptionalDouble;
 import java.util.Set;
 import java.util.TreeSet;
-import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 
 import static org.steamtally.deploy.config.YamlNodes.child;
@@ -63,7 +62,9 @@ public final class ScenarioLoader {
     /** Top-level keys of a plant description, accepted unread beside the section. */
     private static final Set<String> PLANT_KEYS = Set.of("site", "units", "alarms", "collector");
 
-    private static final Pattern DURATION = Pattern.compile("(\\d+(?:\\.\\d+)?)\\s*(ms|s|min|h)");
+    /** Durations as scenario files have always taken them, the unit in any letter case (10S, 2MIN). */
+    private static final Pattern DURATION = Pattern.compile("(\\d+(?:\\.\\d+)?)\\s*(ms|s|min|h)",
+            Pattern.CASE_INSENSITIVE);
 
     /** The keys every fault has, then the further keys of each kind, required (true) or optional. */
     private static final List<String> COMMON_KEYS = List.of("sensor", "kind", "start", "duration");
@@ -475,19 +476,9 @@ public final class ScenarioLoader {
                 problem(at, what + " lacks the key \"" + key + "\" (a duration with its unit, e.g. 10min)");
                 return null;
             }
-            if (node instanceof ScalarNode scalar) {
-                Matcher m = DURATION.matcher(scalar.getValue().strip().toLowerCase(Locale.ROOT));
-                if (m.matches()) {
-                    double millis = Double.parseDouble(m.group(1)) * switch (m.group(2)) {
-                        case "ms" -> 1.0;
-                        case "s" -> 1e3;
-                        case "min" -> 60e3;
-                        default -> 3600e3;
-                    };
-                    if (millis >= 1.0 || zero && millis == 0.0) {
-                        return Duration.ofMillis(Math.round(millis));
-                    }
-                }
+            Duration duration = YamlNodes.duration(node, DURATION, zero);
+            if (duration != null) {
+                return duration;
             }
             problem(node, "the " + key + " of " + what + " must be a duration with its unit, e.g. 500ms, 10s, 2min"
                     + " or 1h" + (zero ? "" : ", more than zero") + ", not " + describe(node));

@@ -5,15 +5,19 @@ import java.io.StringReader;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.time.Duration;
 import java.util.ArrayList;
 import java.util.Collection;
 import java.util.Comparator;
 import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Locale;
 import java.util.Map;
 import java.util.Set;
 import java.util.function.BiConsumer;
 import java.util.function.Function;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
 
 import org.yaml.snakeyaml.LoaderOptions;
 import org.yaml.snakeyaml.Yaml;
@@ -126,6 +130,34 @@ final class YamlNodes {
                 }
             } catch (NumberFormatException e) {
                 // Not a number: the caller reports it with its own wording.
+            }
+        }
+        return null;
+    }
+
+    /**
+     * The duration a scalar gives as an amount with its unit, e.g. {@code 500ms}, {@code 10s},
+     * {@code 2min}, {@code 8h} or {@code 1d}; null otherwise. Under a millisecond counts as zero.
+     *
+     * @param units       the amount in group 1 and one of ms, s, min, h, d in group 2; each loader passes
+     *                    its own, since the sections differ in the units and the letter case they take
+     * @param zeroAllowed whether {@code 0s} is a duration here (e.g. "no delay") or a mistake
+     */
+    static Duration duration(Node node, Pattern units, boolean zeroAllowed) {
+        if (node instanceof ScalarNode scalar) {
+            Matcher m = units.matcher(scalar.getValue().strip());
+            if (m.matches()) {
+                double millis = Double.parseDouble(m.group(1)) * switch (m.group(2).toLowerCase(Locale.ROOT)) {
+                    case "ms" -> 1.0;
+                    case "s" -> 1e3;
+                    case "min" -> 60e3;
+                    case "h" -> 3600e3;
+                    case "d" -> 86_400e3;
+                    default -> throw new IllegalArgumentException("unit " + m.group(2) + " of " + units);
+                };
+                if (millis >= 1.0 || zeroAllowed && millis == 0.0) {
+                    return Duration.ofMillis(Math.round(millis));
+                }
             }
         }
         return null;
