@@ -1,34 +1,25 @@
 package org.steamtally.deploy.config;
 
-import java.io.IOException;
-import java.io.StringReader;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Duration;
 import java.util.ArrayList;
-import java.util.Comparator;
 import java.util.EnumMap;
 import java.util.HashSet;
 import java.util.LinkedHashMap;
 import java.util.LinkedHashSet;
 import java.util.List;
-import java.util.Locale;
 import java.util.Map;
 import java.util.Set;
-import java.util.regex.Matcher;
 import java.util.regex.Pattern;
+
+import static org.steamtally.deploy.config.YamlNodes.child;
+import static org.steamtally.deploy.config.YamlNodes.describe;
+import static org.steamtally.deploy.config.YamlNodes.isNull;
 
 import org.steamtally.calc.alarm.AlarmDefinition;
 import org.steamtally.calc.alarm.AlarmKind;
 import org.steamtally.calc.alarm.AlarmPriority;
 import org.steamtally.calc.alarm.AlarmSettings;
-import org.yaml.snakeyaml.LoaderOptions;
-import org.yaml.snakeyaml.Yaml;
-import org.yaml.snakeyaml.constructor.SafeConstructor;
-import org.yaml.snakeyaml.error.Mark;
-import org.yaml.snakeyaml.error.MarkedYAMLException;
-import org.yaml.snakeyaml.error.YAMLException;
 import org.yaml.snakeyaml.nodes.MappingNode;
 import org.yaml.snakeyaml.nodes.Node;
 import org.yaml.snakeyaml.nodes.NodeTuple;
@@ -58,7 +49,9 @@ public final class AlarmSettingsLoader {
 
     private static final String MAX_SHELVE = "max_shelve";
     private static final String OVERRIDES = "overrides";
-    private static final Pattern DURATION = Pattern.compile("(\\d+(?:\\.\\d+)?)\\s*(ms|s|min|h)");
+    /** Durations as this section has always taken them, the unit in any letter case (10S, 2MIN). */
+    private static final Pattern DURATION = Pattern.compile("(\\d+(?:\\.\\d+)?)\\s*(ms|s|min|h)",
+            Pattern.CASE_INSENSITIVE);
     /** The independent measurements a closure id may name besides components (docs/RESULTS.md, closure[]). */
     private static final Set<String> CLOSURE_PARTS = Set.of("cooling_water", "motor", "fuel");
 
@@ -73,14 +66,7 @@ public final class AlarmSettingsLoader {
      */
     public static AlarmSettings load(Path file) throws PlantDescriptionException {
         String name = file.toString();
-        String text;
-        try {
-            text = Files.readString(file, StandardCharsets.UTF_8);
-        } catch (IOException | RuntimeException e) {
-            throw new PlantDescriptionException(name, List.of(new ConfigProblem(name, 0, 0,
-                    "cannot be read (" + e.getClass().getSimpleName() + ": " + e.getMessage() + ")")));
-        }
-        return parse(name, text);
+        return parse(name, YamlNodes.readText(file, problems -> new PlantDescriptionException(name, problems)));
     }
 
     /**
@@ -90,25 +76,12 @@ public final class AlarmSettingsLoader {
      * @throws PlantDescriptionException listing every problem of the section
      */
     public static AlarmSettings parse(String fileName, String yaml) throws PlantDescriptionException {
-        Node root;
-        try {
-            root = new Yaml(new SafeConstructor(new LoaderOptions())).compose(new StringReader(yaml));
-        } catch (MarkedYAMLException e) {
-            Mark mark = e.getProblemMark() != null ? e.getProblemMark() : e.getContextMark();
-            throw new PlantDescriptionException(fileName, List.of(mark == null
-                    ? new ConfigProblem(fileName, 0, 0, "not valid YAML: " + e.getProblem())
-                    : new ConfigProblem(fileName, mark.getLine() + 1, mark.getColumn() + 1, "not valid YAML: "
-                    + e.getProblem())));
-        } catch (YAMLException e) {
-            throw new PlantDescriptionException(fileName, List.of(new ConfigProblem(fileName, 0, 0,
-                    "not valid YAML: " + e.getMessage())));
-        }
+        Node root = YamlNodes.compose(fileName, yaml, false,
+                problems -> new PlantDescriptionException(fileName, problems));
         Reading reading = new Reading(fileName, root);
         AlarmSettings settings = reading.read();
         if (!reading.problems.isEmpty()) {
-            List<ConfigProblem> sorted = new ArrayList<>(reading.problems);
-            sorted.sort(Comparator.comparingInt(ConfigProblem::line).thenComparingInt(ConfigProblem::column));
-            throw new PlantDescriptionException(fileName, sorted);
+            throw new PlantDescriptionException(fileName, YamlNodes.inFileOrder(reading.problems));
         }
         return settings;
     }
@@ -409,67 +382,18 @@ public final class AlarmSettingsLoader {
             }
         }
 
-        // ---- node access
-
-        private static Node child(Node node, String key) {
-            if (node instanceof MappingNode map) {
-                for (NodeTuple tuple : map.getValue()) {
-                    if (tuple.getKeyNode() instanceof ScalarNode k && k.getValue().equals(key)) {
-                        return tuple.getValueNode();
-                    }
-                }
-            }
-            return null;
-        }
-
-        private static boolean isNull(Node node) {
-            return node instanceof ScalarNode s && s.getTag().getValue().endsWith(":null");
-        }
+        // ---- node access: the shared parts are in YamlNodes
 
         private Map<String, Node> mapping(Node node, String what, Set<String> allowed) {
-            if (!(node instanceof MappingNode map)) {
-                problem(node, what + " must be a mapping of keys to values, not " + describe(node));
-                return null;
-            }
-            Map<String, Node> entries = new LinkedHashMap<>();
-            for (NodeTuple tuple : map.getValue()) {
-                if (!(tuple.getKeyNode() instanceof ScalarNode keyNode)) {
-                    problem(tuple.getKeyNode(), "a key in " + what + " must be a plain name");
-                    continue;
-                }
-                String key = keyNode.getValue();
-                if (entries.containsKey(key)) {
-                    problem(keyNode, "key \"" + key + "\" appears twice in " + what);
-                } else if (!allowed.contains(key)) {
-                    problem(keyNode, "unknown key \"" + key + "\" in " + what + " (allowed: "
-                            + String.join(", ", allowed) + ")");
-                } else {
-                    entries.put(key, tuple.getValueNode());
-                }
-            }
-            return entries;
-        }
-
-        private static String describe(Node node) {
-            if (node instanceof ScalarNode scalar) {
-                return "\"" + scalar.getValue() + "\"";
-            }
-            return node instanceof SequenceNode ? "a list" : "a mapping";
+            return YamlNodes.mapping(node, what, allowed, allowed, this::problem);
         }
 
         private Double number(Node node, String what) {
-            if (node instanceof ScalarNode scalar) {
-                try {
-                    double value = Double.parseDouble(scalar.getValue().strip().replace("_", ""));
-                    if (Double.isFinite(value)) {
-                        return value;
-                    }
-                } catch (NumberFormatException e) {
-                    // Reported below, with the text that was given.
-                }
+            Double value = YamlNodes.finiteNumber(node);
+            if (value == null) {
+                problem(node, what + " must be a number, not " + describe(node));
             }
-            problem(node, what + " must be a number, not " + describe(node));
-            return null;
+            return value;
         }
 
         private Boolean bool(Node node, String what) {
@@ -500,20 +424,9 @@ public final class AlarmSettingsLoader {
         }
 
         private Duration duration(Node node, String what, boolean zeroAllowed) {
-            if (node instanceof ScalarNode scalar) {
-                Matcher m = DURATION.matcher(scalar.getValue().strip().toLowerCase(Locale.ROOT));
-                if (m.matches()) {
-                    double amount = Double.parseDouble(m.group(1));
-                    double millis = amount * switch (m.group(2)) {
-                        case "ms" -> 1.0;
-                        case "s" -> 1e3;
-                        case "min" -> 60e3;
-                        default -> 3600e3;
-                    };
-                    if (millis >= 1.0 || zeroAllowed && millis == 0.0) {
-                        return Duration.ofMillis(Math.round(millis));
-                    }
-                }
+            Duration duration = YamlNodes.duration(node, DURATION, zeroAllowed);
+            if (duration != null) {
+                return duration;
             }
             problem(node, what + " must be a duration with its unit, e.g. 0s, 500ms, 10s, 2min or 8h"
                     + (zeroAllowed ? "" : ", more than zero") + ", not " + describe(node));
@@ -521,9 +434,7 @@ public final class AlarmSettingsLoader {
         }
 
         private void problem(Node node, String message) {
-            Mark mark = node.getStartMark();
-            problems.add(mark == null ? new ConfigProblem(file, 0, 0, message)
-                    : new ConfigProblem(file, mark.getLine() + 1, mark.getColumn() + 1, message));
+            problems.add(YamlNodes.problemAt(file, node.getStartMark(), message));
         }
     }
 }

@@ -1,20 +1,15 @@
 package org.steamtally.deploy.config;
 
-import java.io.IOException;
-import java.io.StringReader;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Duration;
 import java.util.ArrayList;
-import java.util.Comparator;
-import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
-import java.util.regex.Matcher;
 import java.util.regex.Pattern;
+
+import static org.steamtally.deploy.config.YamlNodes.describe;
 
 import org.steamtally.calc.plant.PlantDescription;
 import org.steamtally.calc.plant.Quantity;
@@ -24,12 +19,6 @@ import org.steamtally.collector.config.CollectorSettings;
 import org.steamtally.collector.config.MqttProtocol;
 import org.steamtally.collector.config.SecretRef;
 import org.steamtally.collector.ingest.TopicMap;
-import org.yaml.snakeyaml.LoaderOptions;
-import org.yaml.snakeyaml.Yaml;
-import org.yaml.snakeyaml.constructor.SafeConstructor;
-import org.yaml.snakeyaml.error.Mark;
-import org.yaml.snakeyaml.error.MarkedYAMLException;
-import org.yaml.snakeyaml.error.YAMLException;
 import org.yaml.snakeyaml.nodes.MappingNode;
 import org.yaml.snakeyaml.nodes.Node;
 import org.yaml.snakeyaml.nodes.NodeTuple;
@@ -70,14 +59,8 @@ public final class CollectorSectionReader {
      */
     public static Optional<CollectorSettings> load(Path file, PlantDescription plant) throws PlantDescriptionException {
         String name = file.toString();
-        String text;
-        try {
-            text = Files.readString(file, StandardCharsets.UTF_8);
-        } catch (IOException | RuntimeException e) {
-            throw new PlantDescriptionException(name, List.of(new ConfigProblem(name, 0, 0,
-                    "cannot be read (" + e.getClass().getSimpleName() + ": " + e.getMessage() + ")")));
-        }
-        return parse(name, text, Optional.of(plant));
+        return parse(name, YamlNodes.readText(file, problems -> new PlantDescriptionException(name, problems)),
+                Optional.of(plant));
     }
 
     /**
@@ -104,17 +87,7 @@ public final class CollectorSectionReader {
 
         Optional<CollectorSettings> read(String yaml, Optional<PlantDescription> plant)
                 throws PlantDescriptionException {
-            Node root;
-            try {
-                root = new Yaml(new SafeConstructor(new LoaderOptions())).compose(new StringReader(yaml));
-            } catch (MarkedYAMLException e) {
-                Mark mark = e.getProblemMark() != null ? e.getProblemMark() : e.getContextMark();
-                problem(mark, "not valid YAML: " + e.getProblem());
-                throw failure();
-            } catch (YAMLException e) {
-                problems.add(new ConfigProblem(file, 0, 0, "not valid YAML: " + e.getMessage()));
-                throw failure();
-            }
+            Node root = YamlNodes.compose(file, yaml, false, found -> new PlantDescriptionException(file, found));
             if (!(root instanceof MappingNode top)) {
                 return Optional.empty();
             }
@@ -263,30 +236,10 @@ public final class CollectorSectionReader {
             });
         }
 
-        // ---- node access, in the style of the plant-description loader
+        // ---- node access: the shared parts are in YamlNodes
 
         private Map<String, Node> mapping(Node node, String what, Set<String> allowed, List<String> order) {
-            if (!(node instanceof MappingNode map)) {
-                problem(node, what + " must be a mapping of keys to values, not " + describe(node));
-                return null;
-            }
-            Map<String, Node> entries = new LinkedHashMap<>();
-            for (NodeTuple tuple : map.getValue()) {
-                if (!(tuple.getKeyNode() instanceof ScalarNode scalar)) {
-                    problem(tuple.getKeyNode(), "a key in " + what + " must be a plain name");
-                    continue;
-                }
-                String key = scalar.getValue();
-                if (entries.containsKey(key)) {
-                    problem(scalar, "key \"" + key + "\" appears twice in " + what);
-                } else if (!allowed.contains(key)) {
-                    problem(scalar, "unknown key \"" + key + "\" in " + what + " (allowed: " + String.join(", ", order)
-                            + ")");
-                } else {
-                    entries.put(key, tuple.getValueNode());
-                }
-            }
-            return entries;
+            return YamlNodes.mapping(node, what, allowed, order, this::problem);
         }
 
         private String text(Node node, String what) {
@@ -326,20 +279,9 @@ public final class CollectorSectionReader {
             if (node == null) {
                 return Optional.empty();
             }
-            if (node instanceof ScalarNode scalar) {
-                Matcher m = DURATION.matcher(scalar.getValue().strip());
-                if (m.matches()) {
-                    double millis = Double.parseDouble(m.group(1)) * switch (m.group(2)) {
-                        case "ms" -> 1.0;
-                        case "s" -> 1e3;
-                        case "min" -> 60e3;
-                        case "h" -> 3600e3;
-                        default -> 86_400e3;
-                    };
-                    if (millis >= 1.0 || (zeroAllowed && millis == 0.0)) {
-                        return Optional.of(Duration.ofMillis(Math.round(millis)));
-                    }
-                }
+            Duration duration = YamlNodes.duration(node, DURATION, zeroAllowed);
+            if (duration != null) {
+                return Optional.of(duration);
             }
             problem(node, key + " must be a duration with its unit, e.g. 500ms, 5s, 2min, 1h or 1d"
                     + (zeroAllowed ? " (0s allowed)" : "") + ", not " + describe(node));
@@ -375,26 +317,12 @@ public final class CollectorSectionReader {
             }
         }
 
-        private static String describe(Node node) {
-            if (node instanceof ScalarNode s) {
-                return "\"" + s.getValue() + "\"";
-            }
-            return node instanceof SequenceNode ? "a list" : "a mapping";
-        }
-
         private void problem(Node node, String message) {
-            problem(node.getStartMark(), message);
-        }
-
-        private void problem(Mark mark, String message) {
-            problems.add(mark == null ? new ConfigProblem(file, 0, 0, message)
-                    : new ConfigProblem(file, mark.getLine() + 1, mark.getColumn() + 1, message));
+            problems.add(YamlNodes.problemAt(file, node.getStartMark(), message));
         }
 
         private PlantDescriptionException failure() {
-            List<ConfigProblem> sorted = new ArrayList<>(problems);
-            sorted.sort(Comparator.comparingInt(ConfigProblem::line).thenComparingInt(ConfigProblem::column));
-            return new PlantDescriptionException(file, sorted);
+            return new PlantDescriptionException(file, YamlNodes.inFileOrder(problems));
         }
     }
 }

@@ -6,35 +6,11 @@ import java.util.List;
  * A plant-description file that cannot be used, with every problem found in it (not just the first),
  * each naming the file, the line and the reason. The message lists them all, one per line.
  */
-public final class PlantDescriptionException extends Exception {
+public final class PlantDescriptionException extends ConfigFileException {
 
     private static final long serialVersionUID = 1L;
 
-    private final String file;
-    private final List<ConfigProblem> problems;
-
     public PlantDescriptionException(String file, List<ConfigProblem> problems) {
-        super(message(file, problems));
-        this.file = file;
-        this.problems = List.copyOf(problems);
-    }
-
-    /** The file as it was named to the loader. */
-    public String file() {
-        return file;
-    }
-
-    /** The problems, in the order of the file. */
-    public List<ConfigProblem> problems() {
-        return problems;
-    }
-
-    private static String message(String file, List<ConfigProblem> problems) {
-        StringBuilder text = new StringBuilder("plant description ").append(file).append(" has ")
-                .append(problems.size()).append(problems.size() == 1 ? " problem:" : " problems:");
-        for (ConfigProblem problem : problems) {
-            text.append(System.lineSeparator()).append("  ").append(problem);
-        }
-        return text.toString();
+        super("plant description", file, problems);
     }
 }

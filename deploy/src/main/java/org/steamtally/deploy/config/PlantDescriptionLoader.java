@@ -1,13 +1,8 @@
 package org.steamtally.deploy.config;
 
-import java.io.IOException;
-import java.io.StringReader;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Duration;
 import java.util.ArrayList;
-import java.util.Comparator;
 import java.util.HashMap;
 import java.util.HashSet;
 import java.util.LinkedHashMap;
@@ -18,6 +13,8 @@ import java.util.Set;
 import java.util.function.Supplier;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
+
+import static org.steamtally.deploy.config.YamlNodes.describe;
 
 import org.steamtally.calc.cycle.CycleModelException;
 import org.steamtally.calc.plant.Component;
@@ -38,12 +35,7 @@ import org.steamtally.calc.plant.UnitDescription;
 import org.steamtally.collector.units.EngineeringUnit;
 import org.steamtally.collector.units.UnknownUnitException;
 import org.steamtally.collector.units.Units;
-import org.yaml.snakeyaml.LoaderOptions;
-import org.yaml.snakeyaml.Yaml;
-import org.yaml.snakeyaml.constructor.SafeConstructor;
 import org.yaml.snakeyaml.error.Mark;
-import org.yaml.snakeyaml.error.MarkedYAMLException;
-import org.yaml.snakeyaml.error.YAMLException;
 import org.yaml.snakeyaml.nodes.MappingNode;
 import org.yaml.snakeyaml.nodes.Node;
 import org.yaml.snakeyaml.nodes.NodeTuple;
@@ -91,14 +83,7 @@ public final class PlantDescriptionLoader {
      */
     public static PlantDescription load(Path file) throws PlantDescriptionException {
         String name = file.toString();
-        String text;
-        try {
-            text = Files.readString(file, StandardCharsets.UTF_8);
-        } catch (IOException | RuntimeException e) {
-            throw new PlantDescriptionException(name, List.of(new ConfigProblem(name, 0, 0,
-                    "cannot be read (" + e.getClass().getSimpleName() + ": " + e.getMessage() + ")")));
-        }
-        return parse(name, text);
+        return parse(name, YamlNodes.readText(file, problems -> new PlantDescriptionException(name, problems)));
     }
 
     /**
@@ -143,18 +128,7 @@ public final class PlantDescriptionLoader {
         }
 
         PlantDescription read(String yaml) throws PlantDescriptionException {
-            Node root;
-            try {
-                root = new Yaml(new SafeConstructor(new LoaderOptions())).compose(new StringReader(yaml));
-            } catch (MarkedYAMLException e) {
-                Mark mark = e.getProblemMark() != null ? e.getProblemMark() : e.getContextMark();
-                String context = e.getContext() == null ? "" : e.getContext() + ": ";
-                problem(mark, "not valid YAML: " + context + e.getProblem());
-                throw failure();
-            } catch (YAMLException e) {
-                problems.add(new ConfigProblem(file, 0, 0, "not valid YAML: " + e.getMessage()));
-                throw failure();
-            }
+            Node root = YamlNodes.compose(file, yaml, true, found -> new PlantDescriptionException(file, found));
             if (root == null) {
                 problems.add(new ConfigProblem(file, 0, 0, "is empty: a plant description needs a site and its units"));
                 throw failure();
@@ -181,19 +155,13 @@ public final class PlantDescriptionLoader {
         }
 
         private PlantDescriptionException failure() {
-            List<ConfigProblem> sorted = new ArrayList<>(problems);
-            sorted.sort(Comparator.comparingInt(ConfigProblem::line).thenComparingInt(ConfigProblem::column));
-            return new PlantDescriptionException(file, sorted);
+            return new PlantDescriptionException(file, YamlNodes.inFileOrder(problems));
         }
 
         // ---- problems and positions
 
         private void problem(Mark mark, String message) {
-            if (mark == null) {
-                problems.add(new ConfigProblem(file, 0, 0, message));
-            } else {
-                problems.add(new ConfigProblem(file, mark.getLine() + 1, mark.getColumn() + 1, message));
-            }
+            problems.add(YamlNodes.problemAt(file, mark, message));
         }
 
         private void problem(Node node, String message) {
@@ -324,13 +292,6 @@ public final class PlantDescriptionLoader {
             return path.isEmpty() ? key : path + "." + key;
         }
 
-        private static String describe(Node node) {
-            if (node instanceof ScalarNode scalar) {
-                return "\"" + scalar.getValue() + "\"";
-            }
-            return node instanceof SequenceNode ? "a list" : "a mapping";
-        }
-
         private Node required(Map<String, Node> entries, String key, Node owner, String what) {
             Node node = entries.get(key);
             if (node == null) {
@@ -359,18 +320,11 @@ public final class PlantDescriptionLoader {
         }
 
         private Double number(Node node, String what) {
-            if (node instanceof ScalarNode scalar) {
-                try {
-                    double value = Double.parseDouble(scalar.getValue().strip().replace("_", ""));
-                    if (Double.isFinite(value)) {
-                        return value;
-                    }
-                } catch (NumberFormatException e) {
-                    // Reported below, with the text that was given.
-                }
+            Double value = YamlNodes.finiteNumber(node);
+            if (value == null) {
+                problem(node, what + " must be a number, not " + describe(node));
             }
-            problem(node, what + " must be a number, not " + describe(node));
-            return null;
+            return value;
         }
 
         private Double requiredNumber(Map<String, Node> entries, String key, Node owner, String what) {
@@ -775,20 +729,9 @@ public final class PlantDescriptionLoader {
         }
 
         private Duration duration(Node node, String what) {
-            if (node instanceof ScalarNode scalar) {
-                Matcher m = DURATION.matcher(scalar.getValue().strip());
-                if (m.matches()) {
-                    double amount = Double.parseDouble(m.group(1));
-                    double millis = amount * switch (m.group(2)) {
-                        case "ms" -> 1.0;
-                        case "s" -> 1e3;
-                        case "min" -> 60e3;
-                        default -> 3600e3;
-                    };
-                    if (millis >= 1.0) {
-                        return Duration.ofMillis(Math.round(millis));
-                    }
-                }
+            Duration duration = YamlNodes.duration(node, DURATION, false);
+            if (duration != null) {
+                return duration;
             }
             problem(node, what + " must be a duration with its unit, e.g. 500ms, 5s, 2min or 1h, not " + describe(node));
             return null;

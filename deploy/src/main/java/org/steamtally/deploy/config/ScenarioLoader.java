@@ -1,16 +1,11 @@
 package org.steamtally.deploy.config;
 
-import java.io.IOException;
-import java.io.StringReader;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Duration;
 import java.time.Instant;
 import java.time.OffsetDateTime;
 import java.time.format.DateTimeParseException;
 import java.util.ArrayList;
-import java.util.Comparator;
 import java.util.LinkedHashMap;
 import java.util.LinkedHashSet;
 import java.util.List;
@@ -19,8 +14,12 @@ import java.util.Map;
 import java.util.Objects;
 import java.util.OptionalDouble;
 import java.util.Set;
-import java.util.regex.Matcher;
+import java.util.TreeSet;
 import java.util.regex.Pattern;
+
+import static org.steamtally.deploy.config.YamlNodes.child;
+import static org.steamtally.deploy.config.YamlNodes.describe;
+import static org.steamtally.deploy.config.YamlNodes.isNull;
 
 import org.steamtally.calc.plant.PlantDescription;
 import org.steamtally.calc.plant.Sensor;
@@ -30,12 +29,6 @@ import org.steamtally.calc.sim.Scenario;
 import org.steamtally.collector.units.EngineeringUnit;
 import org.steamtally.collector.units.UnknownUnitException;
 import org.steamtally.collector.units.Units;
-import org.yaml.snakeyaml.LoaderOptions;
-import org.yaml.snakeyaml.Yaml;
-import org.yaml.snakeyaml.constructor.SafeConstructor;
-import org.yaml.snakeyaml.error.Mark;
-import org.yaml.snakeyaml.error.MarkedYAMLException;
-import org.yaml.snakeyaml.error.YAMLException;
 import org.yaml.snakeyaml.nodes.MappingNode;
 import org.yaml.snakeyaml.nodes.Node;
 import org.yaml.snakeyaml.nodes.NodeTuple;
@@ -69,7 +62,9 @@ public final class ScenarioLoader {
     /** Top-level keys of a plant description, accepted unread beside the section. */
     private static final Set<String> PLANT_KEYS = Set.of("site", "units", "alarms", "collector");
 
-    private static final Pattern DURATION = Pattern.compile("(\\d+(?:\\.\\d+)?)\\s*(ms|s|min|h)");
+    /** Durations as scenario files have always taken them, the unit in any letter case (10S, 2MIN). */
+    private static final Pattern DURATION = Pattern.compile("(\\d+(?:\\.\\d+)?)\\s*(ms|s|min|h)",
+            Pattern.CASE_INSENSITIVE);
 
     /** The keys every fault has, then the further keys of each kind, required (true) or optional. */
     private static final List<String> COMMON_KEYS = List.of("sensor", "kind", "start", "duration");
@@ -100,14 +95,7 @@ public final class ScenarioLoader {
      */
     public static LoadedScenario load(Path file, PlantDescription plant, Instant runStart) throws ScenarioException {
         String name = file.toString();
-        String text;
-        try {
-            text = Files.readString(file, StandardCharsets.UTF_8);
-        } catch (IOException | RuntimeException e) {
-            throw new ScenarioException(name, List.of(new ConfigProblem(name, 0, 0,
-                    "cannot be read (" + e.getClass().getSimpleName() + ": " + e.getMessage() + ")")));
-        }
-        return parse(name, text, plant, runStart);
+        return parse(name, YamlNodes.readText(file, problems -> new ScenarioException(name, problems)), plant, runStart);
     }
 
     /**
@@ -123,20 +111,7 @@ public final class ScenarioLoader {
             throws ScenarioException {
         Objects.requireNonNull(plant, "plant");
         Objects.requireNonNull(runStart, "runStart");
-        Node root;
-        try {
-            root = new Yaml(new SafeConstructor(new LoaderOptions())).compose(new StringReader(yaml));
-        } catch (MarkedYAMLException e) {
-            Mark mark = e.getProblemMark() != null ? e.getProblemMark() : e.getContextMark();
-            String context = e.getContext() == null ? "" : e.getContext() + ": ";
-            throw new ScenarioException(fileName, List.of(mark == null
-                    ? new ConfigProblem(fileName, 0, 0, "not valid YAML: " + context + e.getProblem())
-                    : new ConfigProblem(fileName, mark.getLine() + 1, mark.getColumn() + 1,
-                    "not valid YAML: " + context + e.getProblem())));
-        } catch (YAMLException e) {
-            throw new ScenarioException(fileName, List.of(new ConfigProblem(fileName, 0, 0,
-                    "not valid YAML: " + e.getMessage())));
-        }
+        Node root = YamlNodes.compose(fileName, yaml, true, problems -> new ScenarioException(fileName, problems));
         if (root == null) {
             throw new ScenarioException(fileName, List.of(new ConfigProblem(fileName, 0, 0,
                     "is empty: a scenario file needs a scenario section with a name and its faults")));
@@ -144,9 +119,7 @@ public final class ScenarioLoader {
         Reading reading = new Reading(fileName, plant, runStart);
         LoadedScenario loaded = reading.read(root);
         if (!reading.problems.isEmpty() || loaded == null) {
-            List<ConfigProblem> sorted = new ArrayList<>(reading.problems);
-            sorted.sort(Comparator.comparingInt(ConfigProblem::line).thenComparingInt(ConfigProblem::column));
-            throw new ScenarioException(fileName, sorted);
+            throw new ScenarioException(fileName, YamlNodes.inFileOrder(reading.problems));
         }
         return loaded;
     }
@@ -503,64 +476,19 @@ public final class ScenarioLoader {
                 problem(at, what + " lacks the key \"" + key + "\" (a duration with its unit, e.g. 10min)");
                 return null;
             }
-            if (node instanceof ScalarNode scalar) {
-                Matcher m = DURATION.matcher(scalar.getValue().strip().toLowerCase(Locale.ROOT));
-                if (m.matches()) {
-                    double millis = Double.parseDouble(m.group(1)) * switch (m.group(2)) {
-                        case "ms" -> 1.0;
-                        case "s" -> 1e3;
-                        case "min" -> 60e3;
-                        default -> 3600e3;
-                    };
-                    if (millis >= 1.0 || zero && millis == 0.0) {
-                        return Duration.ofMillis(Math.round(millis));
-                    }
-                }
+            Duration duration = YamlNodes.duration(node, DURATION, zero);
+            if (duration != null) {
+                return duration;
             }
             problem(node, "the " + key + " of " + what + " must be a duration with its unit, e.g. 500ms, 10s, 2min"
                     + " or 1h" + (zero ? "" : ", more than zero") + ", not " + describe(node));
             return null;
         }
 
-        // ---- node access
-
-        private static Node child(Node node, String key) {
-            if (node instanceof MappingNode map) {
-                for (NodeTuple tuple : map.getValue()) {
-                    if (tuple.getKeyNode() instanceof ScalarNode k && k.getValue().equals(key)) {
-                        return tuple.getValueNode();
-                    }
-                }
-            }
-            return null;
-        }
-
-        private static boolean isNull(Node node) {
-            return node instanceof ScalarNode s && s.getTag().getValue().endsWith(":null");
-        }
+        // ---- node access: the shared parts are in YamlNodes
 
         private Map<String, Node> mapping(Node node, String what, Set<String> allowed) {
-            if (!(node instanceof MappingNode map)) {
-                problem(node, what + " must be a mapping of keys to values, not " + describe(node));
-                return null;
-            }
-            Map<String, Node> entries = new LinkedHashMap<>();
-            for (NodeTuple tuple : map.getValue()) {
-                if (!(tuple.getKeyNode() instanceof ScalarNode keyNode)) {
-                    problem(tuple.getKeyNode(), "a key in " + what + " must be a plain name");
-                    continue;
-                }
-                String key = keyNode.getValue();
-                if (entries.containsKey(key)) {
-                    problem(keyNode, "key \"" + key + "\" appears twice in " + what);
-                } else if (!allowed.contains(key)) {
-                    problem(keyNode, "unknown key \"" + key + "\" in " + what + " (allowed: "
-                            + String.join(", ", new java.util.TreeSet<>(allowed)) + ")");
-                } else {
-                    entries.put(key, tuple.getValueNode());
-                }
-            }
-            return entries;
+            return YamlNodes.mapping(node, what, allowed, new TreeSet<>(allowed), this::problem);
         }
 
         private String text(Node node, String what) {
@@ -571,32 +499,16 @@ public final class ScenarioLoader {
             return null;
         }
 
-        private static String describe(Node node) {
-            if (node instanceof ScalarNode scalar) {
-                return "\"" + scalar.getValue() + "\"";
-            }
-            return node instanceof SequenceNode ? "a list" : "a mapping";
-        }
-
         private Double number(Node node, String what) {
-            if (node instanceof ScalarNode scalar) {
-                try {
-                    double value = Double.parseDouble(scalar.getValue().strip().replace("_", ""));
-                    if (Double.isFinite(value)) {
-                        return value;
-                    }
-                } catch (NumberFormatException e) {
-                    // Reported below, with the text that was given.
-                }
+            Double value = YamlNodes.finiteNumber(node);
+            if (value == null) {
+                problem(node, what + " must be a finite number, not " + describe(node));
             }
-            problem(node, what + " must be a finite number, not " + describe(node));
-            return null;
+            return value;
         }
 
         private void problem(Node node, String message) {
-            Mark mark = node.getStartMark();
-            problems.add(mark == null ? new ConfigProblem(file, 0, 0, message)
-                    : new ConfigProblem(file, mark.getLine() + 1, mark.getColumn() + 1, message));
+            problems.add(YamlNodes.problemAt(file, node.getStartMark(), message));
         }
     }
 }
