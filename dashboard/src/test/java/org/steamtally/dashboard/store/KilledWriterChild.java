@@ -4,9 +4,7 @@ import io.micrometer.core.instrument.simple.SimpleMeterRegistry;
 import java.nio.file.Path;
 import java.time.Clock;
 import java.time.Duration;
-import java.time.Instant;
 import java.util.List;
-import java.util.Map;
 
 /**
  * The process {@link KilledWriterTest} kills: writes result records at simulated 1 Hz timestamps
@@ -22,7 +20,7 @@ public final class KilledWriterChild {
     }
 
     /** A store that never answers. */
-    static final class Unreachable implements StoreBackend {
+    static final class Unreachable extends WriteOnlyBackend {
         @Override
         public String name() {
             return "unreachable";
@@ -31,40 +29,6 @@ public final class KilledWriterChild {
         @Override
         public void write(List<Point> points) throws StoreUnavailableException {
             throw new StoreUnavailableException("never reachable", null);
-        }
-
-        @Override
-        public List<Point> points(Measurement m, String site, String unit, Instant from, Instant to) {
-            return List.of();
-        }
-
-        @Override
-        public Map<String, List<Bucket>> buckets(SeriesRef s, Instant from, Instant to, Duration width) {
-            return Map.of();
-        }
-
-        @Override
-        public List<ClosureStats> closureStats(String site, String unit, Instant from, Instant to) {
-            return List.of();
-        }
-
-        @Override
-        public List<SuspectSensor> suspects(String site, String unit, Instant from, Instant to) {
-            return List.of();
-        }
-
-        @Override
-        public List<StoredAlarmEvent> alarmEvents(String site, String unit, Instant from, Instant to) {
-            return List.of();
-        }
-
-        @Override
-        public List<StoredAlarmEvent> lastAlarmEventsBefore(String site, String unit, Instant t) {
-            return List.of();
-        }
-
-        @Override
-        public void close() {
         }
     }
 

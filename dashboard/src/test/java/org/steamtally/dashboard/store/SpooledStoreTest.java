@@ -12,7 +12,6 @@ import java.time.Instant;
 import java.util.ArrayList;
 import java.util.Collections;
 import java.util.List;
-import java.util.Map;
 import java.util.concurrent.atomic.AtomicLong;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
@@ -24,7 +23,7 @@ class SpooledStoreTest {
     Path dir;
 
     /** A backend that records what it is given and fails while told to. */
-    static final class FakeBackend implements StoreBackend {
+    static final class FakeBackend extends WriteOnlyBackend {
         final List<Point> written = Collections.synchronizedList(new ArrayList<>());
         volatile boolean down;
 
@@ -39,40 +38,6 @@ class SpooledStoreTest {
                 throw new StoreUnavailableException("fake store is down", null);
             }
             written.addAll(points);
-        }
-
-        @Override
-        public List<Point> points(Measurement m, String site, String unit, Instant from, Instant to) {
-            return List.of();
-        }
-
-        @Override
-        public Map<String, List<Bucket>> buckets(SeriesRef s, Instant from, Instant to, Duration width) {
-            return Map.of();
-        }
-
-        @Override
-        public List<ClosureStats> closureStats(String site, String unit, Instant from, Instant to) {
-            return List.of();
-        }
-
-        @Override
-        public List<SuspectSensor> suspects(String site, String unit, Instant from, Instant to) {
-            return List.of();
-        }
-
-        @Override
-        public List<StoredAlarmEvent> alarmEvents(String site, String unit, Instant from, Instant to) {
-            return List.of();
-        }
-
-        @Override
-        public List<StoredAlarmEvent> lastAlarmEventsBefore(String site, String unit, Instant t) {
-            return List.of();
-        }
-
-        @Override
-        public void close() {
         }
     }
 
