@@ -121,6 +121,43 @@
     $('result-time').textContent = state.result ? 'Result time ' + state.result.ts + ' (UTC)' : '';
   }
 
+  // ------------------------------------------------------------------ balance checks
+  // One row per channel: the single snapshot's reconciliation and, when the daemon runs it, the
+  // window mean's. The verdict is a word, never a colour alone.
+  function verdict(r, filling) {
+    if (!r) return { word: 'NOT RUN', kind: 'low', detail: '' };
+    const ratio = (r.chi2_limit ? 'χ² ' + Units.fixed(r.chi2, 2) + ' of limit ' + Units.fixed(r.chi2_limit, 2) : '');
+    const names = (r.suspects || []).map(x => x.equivalence_set && x.equivalence_set.length > 1
+      ? x.id + ' (or ' + x.equivalence_set.filter(i => i !== x.id).join(', ') + ')' : x.id);
+    let word; let kind;
+    if (r.status === 'passed') { word = 'PASSED'; kind = 'ok'; }
+    else if (r.status === 'failed') { word = 'FAILED'; kind = 'high'; }
+    else { word = String(r.status || 'not run').replace(/_/g, ' ').toUpperCase(); kind = 'low'; }
+    const parts = [];
+    if (ratio) parts.push(ratio);
+    if (names.length) parts.push('suspect: ' + names.join(', '));
+    if (filling) parts.push(filling);
+    return { word, kind, detail: parts.join('; ') };
+  }
+  function renderChecks() {
+    const t = $('checks-table');
+    clear(t);
+    t.append(el('tr', {}, el('th', { class: 'text' }, 'Check'), el('th', { class: 'text' }, 'Verdict'),
+      el('th', { class: 'text' }, 'Detail')));
+    if (!state.result) return;
+    const rec = state.result.reconciliation;
+    const one = verdict(rec ? Object.assign({ suspects: state.result.suspects }, rec) : null, null);
+    t.append(el('tr', {}, el('td', { class: 'text' }, 'Each snapshot'),
+      el('td', { class: 'text' }, tag(one.word, one.kind)), el('td', { class: 'text' }, one.detail)));
+    const w = state.result.window_reconciliation;
+    if (w) {
+      const filling = w.samples < w.length ? 'window filling: ' + w.samples + ' of ' + w.length + ' snapshots' : null;
+      const v = verdict(w, filling);
+      t.append(el('tr', {}, el('td', { class: 'text' }, 'Mean of the last ' + Units.fixed(w.length_s, 0) + ' s'),
+        el('td', { class: 'text' }, tag(v.word, v.kind)), el('td', { class: 'text' }, v.detail)));
+    }
+  }
+
   // ------------------------------------------------------------------ state table
   function stateById() {
     const m = new Map();
@@ -651,6 +688,7 @@
   function renderAll() {
     renderStatus();
     renderMetrics();
+    renderChecks();
     renderSchematic();
     renderTs();
     renderStateTable();

@@ -3,6 +3,7 @@ package org.steamtally.calc.cycle;
 import java.time.Instant;
 import java.util.List;
 import java.util.Objects;
+import java.util.Optional;
 
 /**
  * The result record of one snapshot of one unit: the contract shared by {@code replay}, the live API
@@ -19,6 +20,8 @@ import java.util.Objects;
  * @param reconciliation the reconciliation of the snapshot and its tests
  * @param metricsBasis   which values {@code states}, {@code components} and {@code cycle} come from
  * @param cycleRaw       the cycle's figures from the values as measured, kept beside {@code cycle}
+ * @param windowReconciliation the window channel's verdict on the mean of the last snapshots; empty
+ *                       when no window channel runs (replay, or the channel switched off)
  */
 public record UnitResult(
         Instant timestamp,
@@ -30,7 +33,8 @@ public record UnitResult(
         List<ClosureResult> closure,
         ReconciliationResult reconciliation,
         MetricsBasis metricsBasis,
-        CycleResult cycleRaw) {
+        CycleResult cycleRaw,
+        Optional<WindowReconciliation> windowReconciliation) {
 
     public UnitResult {
         Objects.requireNonNull(timestamp, "timestamp");
@@ -43,6 +47,21 @@ public record UnitResult(
         Objects.requireNonNull(reconciliation, "reconciliation");
         Objects.requireNonNull(metricsBasis, "metricsBasis");
         Objects.requireNonNull(cycleRaw, "cycleRaw");
+        Objects.requireNonNull(windowReconciliation, "windowReconciliation");
+    }
+
+    /** A record without a window channel's verdict. */
+    public UnitResult(Instant timestamp, String site, String unit, List<StateResult> states,
+                      List<ComponentResult> components, CycleResult cycle, List<ClosureResult> closure,
+                      ReconciliationResult reconciliation, MetricsBasis metricsBasis, CycleResult cycleRaw) {
+        this(timestamp, site, unit, states, components, cycle, closure, reconciliation, metricsBasis, cycleRaw,
+                Optional.empty());
+    }
+
+    /** This record with the window channel's verdict beside it. */
+    public UnitResult withWindowReconciliation(WindowReconciliation window) {
+        return new UnitResult(timestamp, site, unit, states, components, cycle, closure, reconciliation, metricsBasis,
+                cycleRaw, Optional.of(window));
     }
 
     /** A record without reconciliation: every figure from the values as measured. */

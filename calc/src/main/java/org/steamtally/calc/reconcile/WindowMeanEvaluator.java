@@ -85,6 +85,11 @@ public final class WindowMeanEvaluator {
         return window;
     }
 
+    /** The snapshots the window holds now: up to the window length, fewer while it fills after a start or {@link #clear()}. */
+    public int samples() {
+        return held;
+    }
+
     /**
      * Takes the snapshot into the window and returns the result record of the window's mean, time
      * stamped with this snapshot's time; never throws for bad sensor values.

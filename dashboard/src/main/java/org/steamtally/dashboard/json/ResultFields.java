@@ -82,6 +82,12 @@ public final class ResultFields {
     public static final List<String> SUSPECT_NUMBERS = List.of("bias", "sigma_bias");
     public static final String CONFIRMED = "confirmed";
 
+    /** The window channel's verdict, absent when no window channel ran; its fields in order. */
+    public static final String WINDOW_RECONCILIATION = "window_reconciliation";
+    public static final String LENGTH_S = "length_s";
+    public static final String LENGTH = "length";
+    public static final String SAMPLES = "samples";
+
     private ResultFields() {
     }
 }

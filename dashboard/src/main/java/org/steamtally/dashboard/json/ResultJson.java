@@ -33,6 +33,7 @@ import org.steamtally.calc.cycle.ReconciliationResult;
 import org.steamtally.calc.cycle.StateResult;
 import org.steamtally.calc.cycle.Suspect;
 import org.steamtally.calc.cycle.UnitResult;
+import org.steamtally.calc.cycle.WindowReconciliation;
 
 /**
  * The JSON form of a {@link UnitResult}: one object with the fields of {@link ResultFields}, always
@@ -135,6 +136,7 @@ public final class ResultJson {
             writeNumbers(g, "cycle_raw", ResultFields.CYCLE_NUMBERS, cycleNumbers(result.cycleRaw()));
             g.writeEndObject();
             writeReconciliation(g, result.reconciliation());
+            writeWindow(g, result.windowReconciliation());
             g.writeEndObject();
         }
     }
@@ -174,8 +176,32 @@ public final class ResultJson {
         }
         g.writeEndArray();
         g.writeEndObject();
+        writeSuspects(g, r.suspects());
+    }
+
+    /** The window channel's verdict; nothing when the record has none. */
+    private static void writeWindow(JsonGenerator g, java.util.Optional<WindowReconciliation> window)
+            throws IOException {
+        if (window.isEmpty()) {
+            return;
+        }
+        WindowReconciliation w = window.get();
+        g.writeObjectFieldStart(ResultFields.WINDOW_RECONCILIATION);
+        g.writeNumberField(ResultFields.LENGTH_S, w.lengthS());
+        g.writeNumberField(ResultFields.LENGTH, w.length());
+        g.writeNumberField(ResultFields.SAMPLES, w.samples());
+        g.writeStringField(ResultFields.STATUS, w.status());
+        g.writeBooleanField(ResultFields.PASSED, w.passed());
+        g.writeNumberField(ResultFields.CHI2, w.chi2());
+        writeNumber(g, ResultFields.WINDOW_RECONCILIATION, ResultFields.CHI2_LIMIT, w.chi2Limit());
+        g.writeNumberField(ResultFields.REDUNDANCY, w.redundancy());
+        writeSuspects(g, w.suspects());
+        g.writeEndObject();
+    }
+
+    private static void writeSuspects(JsonGenerator g, List<Suspect> suspects) throws IOException {
         g.writeArrayFieldStart(ResultFields.SUSPECTS);
-        for (Suspect s : r.suspects()) {
+        for (Suspect s : suspects) {
             g.writeStartObject();
             g.writeNumberField(ResultFields.RANK, s.rank());
             g.writeStringField(ResultFields.ID, s.id());
@@ -275,8 +301,9 @@ public final class ResultJson {
         OptionalDouble[] w = numbers(rawNode, ResultFields.CYCLE_NUMBERS, "cycle_raw");
         CycleResult cycleRaw = new CycleResult(w[0], w[1], w[2], w[3], w[4], w[5], w[6], w[7], w[8], w[9]);
         ReconciliationResult reconciliation = reconciliation(root);
+        Optional<WindowReconciliation> window = window(root);
         return construct("record", () -> new UnitResult(ts, site, unit, states, components, cycle, closure,
-                reconciliation, basis, cycleRaw));
+                reconciliation, basis, cycleRaw, window));
     }
 
     private static ReconciliationResult reconciliation(JsonNode root) {
@@ -310,8 +337,42 @@ public final class ResultJson {
             unmeasured.add(construct(w, () -> new ReconciledQuantity(id, text(q, ResultFields.UNIT_NAME, w), n[0], n[1],
                     bool(q, ResultFields.OBSERVABLE, w))));
         }
+        List<Suspect> suspects = suspects(root);
+        if (bool(r, ResultFields.PASSED, where) != ReconciliationResult.PASSED.equals(status)) {
+            throw new ResultFormatException(where + ": passed must be true exactly when status is passed");
+        }
+        return construct(where, () -> new ReconciliationResult(status, chi2, limit, redundancy, confidence, testLimit,
+                iterations, reason, sensors, unmeasured, suspects));
+    }
+
+    /** The window channel's verdict, when the record has one. */
+    private static Optional<WindowReconciliation> window(JsonNode root) {
+        JsonNode w = root.get(ResultFields.WINDOW_RECONCILIATION);
+        if (w == null || w.isNull()) {
+            return Optional.empty();
+        }
+        String where = ResultFields.WINDOW_RECONCILIATION;
+        if (!w.isObject()) {
+            throw new ResultFormatException("record: " + where + " must be an object");
+        }
+        String status = text(w, ResultFields.STATUS, where);
+        if (bool(w, ResultFields.PASSED, where) != ReconciliationResult.PASSED.equals(status)) {
+            throw new ResultFormatException(where + ": passed must be true exactly when status is passed");
+        }
+        double lengthS = requiredNumber(w, ResultFields.LENGTH_S, where);
+        int length = integer(w, ResultFields.LENGTH, where);
+        int samples = integer(w, ResultFields.SAMPLES, where);
+        double chi2 = requiredNumber(w, ResultFields.CHI2, where);
+        OptionalDouble limit = number(w, ResultFields.CHI2_LIMIT, where);
+        int redundancy = integer(w, ResultFields.REDUNDANCY, where);
+        List<Suspect> suspects = suspects(w);
+        return Optional.of(construct(where, () -> new WindowReconciliation(lengthS, length, samples, status, chi2,
+                limit, redundancy, suspects)));
+    }
+
+    private static List<Suspect> suspects(JsonNode holder) {
         List<Suspect> suspects = new ArrayList<>();
-        for (JsonNode s : array(root, ResultFields.SUSPECTS)) {
+        for (JsonNode s : array(holder, ResultFields.SUSPECTS)) {
             String id = text(s, ResultFields.ID, "suspect");
             String w = "suspect " + id;
             JsonNode set = field(s, ResultFields.EQUIVALENCE_SET, w);
@@ -330,11 +391,7 @@ public final class ResultJson {
                     text(s, ResultFields.UNIT_NAME, w), ids, requiredNumber(s, ResultFields.TEST_VALUE, w), n[0], n[1],
                     bool(s, ResultFields.CONFIRMED, w))));
         }
-        if (bool(r, ResultFields.PASSED, where) != ReconciliationResult.PASSED.equals(status)) {
-            throw new ResultFormatException(where + ": passed must be true exactly when status is passed");
-        }
-        return construct(where, () -> new ReconciliationResult(status, chi2, limit, redundancy, confidence, testLimit,
-                iterations, reason, sensors, unmeasured, suspects));
+        return suspects;
     }
 
     private static MetricsBasis metricsBasis(String label) {

@@ -55,7 +55,17 @@ public enum Measurement {
 
     /** Raw readings after conversion to SI. */
     READINGS("readings", "sensor", 7,
-            Field.number("value_si"), Field.text("quality"));
+            Field.number("value_si"), Field.text("quality")),
+
+    /**
+     * The window channel's verdict on the mean of the last snapshots, one point per record that has
+     * one (docs/RESULTS.md, {@code window_reconciliation}). No id tag. {@code chi2_ratio} is χ² over
+     * its quantile and {@code suspects} the ranked suspect ids joined by commas (absent when none).
+     */
+    WINDOW_RECONCILIATION("window_reconciliation", null, 8,
+            Field.number("length_s"), Field.integer("samples"), Field.text("status"), Field.flag("passed"),
+            Field.number("chi2"), Field.number("chi2_limit"), Field.number("chi2_ratio"), Field.integer("redundancy"),
+            Field.text("suspects"));
 
     /** The type a field has in every point of its measurement. */
     public enum FieldType {
@@ -161,6 +171,6 @@ public enum Measurement {
             }
         }
         throw new IllegalArgumentException("unknown measurement '" + name + "'; expected one of states, components,"
-                + " cycle, closure, reconciliation, alarms, readings");
+                + " cycle, closure, reconciliation, alarms, readings, window_reconciliation");
     }
 }

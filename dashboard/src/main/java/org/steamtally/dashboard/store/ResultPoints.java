@@ -10,6 +10,7 @@ import org.steamtally.calc.cycle.ComponentResult;
 import org.steamtally.calc.cycle.CycleResult;
 import org.steamtally.calc.cycle.Phase;
 import org.steamtally.calc.cycle.StateResult;
+import org.steamtally.calc.cycle.Suspect;
 import org.steamtally.calc.cycle.UnitResult;
 
 /**
@@ -23,7 +24,8 @@ public final class ResultPoints {
 
     /**
      * The points of one result record: one per state, one per component, one for the cycle (left out
-     * when every cycle figure is empty, since such a point would carry nothing) and one per closure.
+     * when every cycle figure is empty, since such a point would carry nothing), one per closure and
+     * one for the window channel's verdict when the record has one.
      */
     public static List<Point> of(UnitResult r) {
         long ts = r.timestamp().toEpochMilli();
@@ -50,6 +52,10 @@ public final class ResultPoints {
         for (ClosureResult k : r.closure()) {
             out.add(new Point(Measurement.CLOSURE, r.site(), r.unit(), k.id(), ts, k.residualW(), k.sigmaW(), k.z()));
         }
+        r.windowReconciliation().ifPresent(w -> out.add(new Point(Measurement.WINDOW_RECONCILIATION, r.site(),
+                r.unit(), null, ts, w.lengthS(), (long) w.samples(), w.status(), w.passed(), w.chi2(),
+                d(w.chi2Limit()), d(w.chi2Ratio()), (long) w.redundancy(),
+                w.suspects().isEmpty() ? null : String.join(",", w.suspects().stream().map(Suspect::id).toList()))));
         return out;
     }
 
