@@ -40,7 +40,11 @@ import org.yaml.snakeyaml.nodes.SequenceNode;
  *   overrides:
  *     - {id: "closure:cycle", limit: 4}
  *     - {id: "stale:TT-101", enabled: false}
+ *   window: {length: 50s, closure: {limit: 4.5}, global_test: {limit: 3.0}, suspect_sensor: {limit: 4.0}}
  * </pre>
+ *
+ * The {@code window} subsection configures the window channel ({@link WindowChannelSettings}); it is
+ * read by {@link #loadWindow} and {@link #parseWindow}, and its problems count as the section's.
  */
 public final class AlarmSettingsLoader {
 
@@ -49,6 +53,8 @@ public final class AlarmSettingsLoader {
 
     private static final String MAX_SHELVE = "max_shelve";
     private static final String OVERRIDES = "overrides";
+    /** The window channel's subsection (docs/ALARMS.md, window-mean alarms). */
+    public static final String WINDOW = "window";
     /** Durations as this section has always taken them, the unit in any letter case (10S, 2MIN). */
     private static final Pattern DURATION = Pattern.compile("(\\d+(?:\\.\\d+)?)\\s*(ms|s|min|h)",
             Pattern.CASE_INSENSITIVE);
@@ -67,6 +73,34 @@ public final class AlarmSettingsLoader {
     public static AlarmSettings load(Path file) throws PlantDescriptionException {
         String name = file.toString();
         return parse(name, YamlNodes.readText(file, problems -> new PlantDescriptionException(name, problems)));
+    }
+
+    /**
+     * Reads the window channel's settings ({@code alarms.window}) of one plant-description file;
+     * {@link WindowChannelSettings#DEFAULTS} (with the file's {@code max_shelve}) when absent.
+     *
+     * @throws PlantDescriptionException listing every problem of the alarms section
+     */
+    public static WindowChannelSettings loadWindow(Path file) throws PlantDescriptionException {
+        String name = file.toString();
+        return parseWindow(name, YamlNodes.readText(file, problems -> new PlantDescriptionException(name, problems)));
+    }
+
+    /**
+     * Reads the window channel's settings from plant-description text.
+     *
+     * @param fileName the name to give in problems
+     * @throws PlantDescriptionException listing every problem of the alarms section
+     */
+    public static WindowChannelSettings parseWindow(String fileName, String yaml) throws PlantDescriptionException {
+        Node root = YamlNodes.compose(fileName, yaml, false,
+                problems -> new PlantDescriptionException(fileName, problems));
+        Reading reading = new Reading(fileName, root);
+        reading.read();
+        if (!reading.problems.isEmpty()) {
+            throw new PlantDescriptionException(fileName, YamlNodes.inFileOrder(reading.problems));
+        }
+        return reading.window;
     }
 
     /**
@@ -108,6 +142,7 @@ public final class AlarmSettingsLoader {
         private final Set<String> sensors = new HashSet<>();
         private final Set<String> states = new HashSet<>();
         private final Set<String> components = new HashSet<>();
+        WindowChannelSettings window = WindowChannelSettings.DEFAULTS;
 
         Reading(String file, Node root) {
             this.file = file;
@@ -129,6 +164,7 @@ public final class AlarmSettingsLoader {
             }
             allowed.add(MAX_SHELVE);
             allowed.add(OVERRIDES);
+            allowed.add(WINDOW);
             Map<String, Node> entries = mapping(section, "the alarms section", allowed);
             if (entries == null) {
                 return AlarmSettings.DEFAULTS;
@@ -150,6 +186,9 @@ public final class AlarmSettingsLoader {
                     maxShelve = d;
                 }
             }
+            window = entries.containsKey(WINDOW) ? readWindow(entries.get(WINDOW), maxShelve)
+                    : new WindowChannelSettings(true, WindowChannelSettings.LENGTH_DEFAULT,
+                            WindowChannelSettings.alarmSettings(Map.of(), maxShelve));
             Map<String, AlarmDefinition> overrides = new LinkedHashMap<>();
             if (entries.containsKey(OVERRIDES)) {
                 readOverrides(entries.get(OVERRIDES), kinds, overrides);
@@ -161,6 +200,98 @@ public final class AlarmSettingsLoader {
                 problem(section, e.getMessage());
                 return AlarmSettings.DEFAULTS;
             }
+        }
+
+        /**
+         * The window channel's settings over its defaults; the defaults (with problems) where a value
+         * cannot be used, since the problems fail the file anyway.
+         */
+        private WindowChannelSettings readWindow(Node node, Duration maxShelve) {
+            WindowChannelSettings defaults = new WindowChannelSettings(true, WindowChannelSettings.LENGTH_DEFAULT,
+                    WindowChannelSettings.alarmSettings(Map.of(), maxShelve));
+            if (isNull(node)) {
+                return defaults;
+            }
+            List<String> shown = new ArrayList<>(List.of("enabled", "length"));
+            for (AlarmKind kind : AlarmKind.values()) {
+                if (WindowChannelSettings.KINDS.contains(kind)) {
+                    shown.add(kind.key());
+                }
+            }
+            Set<String> allowed = new LinkedHashSet<>(shown);
+            for (AlarmKind kind : AlarmKind.values()) {
+                allowed.add(kind.key());
+            }
+            Map<String, Node> entries = YamlNodes.mapping(node, "alarms.window", allowed, shown, this::problem);
+            if (entries == null) {
+                return defaults;
+            }
+            boolean enabled = true;
+            Duration length = WindowChannelSettings.LENGTH_DEFAULT;
+            Map<AlarmKind, AlarmDefinition> kinds = new EnumMap<>(AlarmKind.class);
+            for (Map.Entry<String, Node> e : entries.entrySet()) {
+                String key = e.getKey();
+                Node value = e.getValue();
+                switch (key) {
+                    case "enabled" -> {
+                        Boolean b = bool(value, "enabled of alarms.window");
+                        enabled = b == null ? enabled : b;
+                    }
+                    case "length" -> {
+                        Duration d = duration(value, "length of alarms.window", false);
+                        if (d != null && (d.compareTo(WindowChannelSettings.MIN_LENGTH) < 0
+                                || d.compareTo(WindowChannelSettings.MAX_LENGTH) > 0)) {
+                            problem(value, "length of alarms.window must be between "
+                                    + WindowChannelSettings.MIN_LENGTH.toSeconds() + "s and "
+                                    + WindowChannelSettings.MAX_LENGTH.toMinutes() + "min, not "
+                                    + describe(value));
+                        } else if (d != null) {
+                            length = d;
+                        }
+                    }
+                    default -> {
+                        AlarmKind kind = kindOfKey(key);
+                        if (!WindowChannelSettings.KINDS.contains(kind)) {
+                            Node keyNode = keyNodeOf(node, key);
+                            problem(keyNode == null ? value : keyNode, "alarms.window: " + key
+                                    + " alarms are not raised on window means (the per-snapshot channel raises"
+                                    + " them); allowed here: " + String.join(", ", shown));
+                            continue;
+                        }
+                        AlarmDefinition d = definition(value, kind, WindowChannelSettings.defaultOf(kind),
+                                "alarms.window." + key, false);
+                        if (d != null) {
+                            kinds.put(kind, d);
+                        }
+                    }
+                }
+            }
+            try {
+                return new WindowChannelSettings(enabled, length, WindowChannelSettings.alarmSettings(kinds, maxShelve));
+            } catch (IllegalArgumentException e) {
+                problem(node, "alarms.window: " + e.getMessage());
+                return defaults;
+            }
+        }
+
+        private static AlarmKind kindOfKey(String key) {
+            for (AlarmKind kind : AlarmKind.values()) {
+                if (kind.key().equals(key)) {
+                    return kind;
+                }
+            }
+            throw new IllegalStateException(key);
+        }
+
+        private static Node keyNodeOf(Node mapping, String key) {
+            if (mapping instanceof MappingNode map) {
+                for (NodeTuple t : map.getValue()) {
+                    if (t.getKeyNode() instanceof ScalarNode k && k.getValue().equals(key)) {
+                        return t.getKeyNode();
+                    }
+                }
+            }
+            return null;
         }
 
         private void readOverrides(Node node, Map<AlarmKind, AlarmDefinition> kinds,

@@ -40,6 +40,31 @@ public final class AlarmStateFile {
         this.file = dataDir.resolve("alarms").resolve("alarm-state-" + unitId + ".json");
     }
 
+    /**
+     * The state file of a second alarm engine of {@code unitId}, e.g. the window channel's, in its
+     * own directory ({@code alarms/<channel>/}) so that no unit id can make it collide with another.
+     */
+    public AlarmStateFile(Path dataDir, String unitId, String channel) {
+        this(channelFile(dataDir.resolve("alarms"), channel, "alarm-state-" + unitId + ".json"));
+    }
+
+    private AlarmStateFile(Path file) {
+        this.file = file;
+    }
+
+    private static Path channelFile(Path alarmsDir, String channel, String fileName) {
+        if (!channel.matches("[a-z][a-z0-9_]*")) {
+            throw new IllegalArgumentException("alarm channel name must be lower-case letters, digits and _, was \""
+                    + channel + "\"");
+        }
+        return alarmsDir.resolve(channel).resolve(fileName);
+    }
+
+    /** The state file of the same unit's engine of another channel, beside this one ({@code <channel>/}). */
+    public AlarmStateFile forChannel(String channel) {
+        return new AlarmStateFile(channelFile(file.getParent(), channel, file.getFileName().toString()));
+    }
+
     public Path path() {
         return file;
     }

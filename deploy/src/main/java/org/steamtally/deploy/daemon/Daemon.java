@@ -14,6 +14,7 @@ import java.util.Map;
 import java.util.Objects;
 import java.util.concurrent.TimeUnit;
 import org.steamtally.calc.alarm.AlarmSettings;
+import org.steamtally.deploy.config.WindowChannelSettings;
 import org.steamtally.calc.plant.PlantDescription;
 import org.steamtally.calc.plant.UnitDescription;
 import org.steamtally.collector.config.CollectorSettings;
@@ -70,10 +71,20 @@ public final class Daemon implements AutoCloseable {
      * @param users      the dashboard's accounts
      * @param env        the environment (InfluxDB settings, secrets)
      * @param clock      the clock for everything
+     * @param window     the window channel's settings ({@code alarms.window})
      */
     public record Config(PlantDescription plant, AlarmSettings alarms, CollectorSettings collector, Path dataDir,
-                         DashboardConfig dashboard, List<UserAccount> users, Map<String, String> env, Clock clock) {
+                         DashboardConfig dashboard, List<UserAccount> users, Map<String, String> env, Clock clock,
+                         WindowChannelSettings window) {
+
+        /** A configuration with the window channel at its defaults. */
+        public Config(PlantDescription plant, AlarmSettings alarms, CollectorSettings collector, Path dataDir,
+                      DashboardConfig dashboard, List<UserAccount> users, Map<String, String> env, Clock clock) {
+            this(plant, alarms, collector, dataDir, dashboard, users, env, clock, WindowChannelSettings.DEFAULTS);
+        }
+
         public Config {
+            Objects.requireNonNull(window, "window");
             Objects.requireNonNull(plant, "plant");
             Objects.requireNonNull(alarms, "alarms");
             Objects.requireNonNull(collector, "collector");
@@ -131,8 +142,8 @@ public final class Daemon implements AutoCloseable {
             }
         }, config.env()::get);
         for (UnitDescription unit : plant.units()) {
-            UnitMonitor m = new UnitMonitor(plant.siteId(), unit, config.alarms(),
-                    collector.slot(unit.id())::take, store, live,
+            UnitMonitor m = new UnitMonitor(plant.siteId(), unit, config.alarms(), config.window(),
+                    config.collector().snapshotPeriod(), collector.slot(unit.id())::take, store, live,
                     new AlarmStateFile(config.dataDir(), unit.id()), registry, clock);
             monitors.add(m);
         }

@@ -86,7 +86,7 @@ public final class Demo implements AutoCloseable {
                     MqttProtocol.MQTT_3_1_1, "steamtally-demo-sim-" + suffix, PublisherOptions.DEFAULT_WINDOW, true,
                     false)), clock);
             daemon = new Daemon(new Daemon.Config(files.plant(), files.alarms(), collector, dataDir,
-                    DashboardConfig.defaults().withPort(httpPort), users, env, clock));
+                    DashboardConfig.defaults().withPort(httpPort), users, env, clock, files.window()));
             daemon.extend(new DemoFaults(Map.of(unit.id(), sim), clock));
             daemon.start();
             sim.startPeriodic(STEP);

@@ -29,6 +29,10 @@ import org.steamtally.dashboard.push.LiveResults;
  * engine's id with the unit after an {@code @} ({@code closure:cycle@unit3}), since engine ids are
  * unique only within a unit. Actions go to the unit's {@link UnitMonitor}, which runs them on the
  * unit's thread, stores the event and saves the state.
+ *
+ * <p>A unit's window-channel alarms are on the board beside its per-snapshot ones, with their
+ * outside id ({@code window:suspect:TT-311@unit3}) and a text that says they are about the window
+ * mean; their actions go to the window channel's engine.
  */
 public final class EngineAlarmBoard implements AlarmBoard {
 
@@ -45,6 +49,12 @@ public final class EngineAlarmBoard implements AlarmBoard {
                     // The board's view has no normal state: a return to normal shows as the alarm
                     // leaving the list, which the page learns from its next listing.
                     view(m, r).ifPresent(v -> listeners.getOrDefault(m.unitId(), List.of()).forEach(l -> l.accept(v)));
+                }
+            });
+            m.onWindowAlarmChange(changed -> {
+                for (AlarmRecord r : changed) {
+                    windowView(m, r).ifPresent(v -> listeners.getOrDefault(m.unitId(), List.of())
+                            .forEach(l -> l.accept(v)));
                 }
             });
         }
@@ -64,6 +74,9 @@ public final class EngineAlarmBoard implements AlarmBoard {
         List<AlarmView> out = new ArrayList<>();
         for (AlarmRecord r : m.alarms()) {
             view(m, r).ifPresent(out::add);
+        }
+        for (AlarmRecord r : m.windowAlarms()) {
+            windowView(m, r).ifPresent(out::add);
         }
         out.sort(Comparator.comparing(AlarmView::priority).thenComparing(AlarmView::since, Comparator.reverseOrder()));
         return out;
@@ -101,23 +114,35 @@ public final class EngineAlarmBoard implements AlarmBoard {
         if (m == null) {
             throw new UnknownAlarmException(boardId);
         }
-        String engineId = boardId.substring(0, at);
-        if (m.alarms().stream().noneMatch(r -> r.id().equals(engineId))) {
+        String outsideId = boardId.substring(0, at);
+        boolean inWindow = WindowChannel.isWindowId(outsideId);
+        String engineId = inWindow ? WindowChannel.engineId(outsideId) : outsideId;
+        List<AlarmRecord> known = inWindow ? m.windowAlarms() : m.alarms();
+        if (known.stream().noneMatch(r -> r.id().equals(engineId))) {
             throw new UnknownAlarmException(boardId);
         }
         Function<AlarmEngine, AlarmEvent> f = engine -> action.apply(engine, engineId);
         AlarmRecord after;
         try {
-            after = m.act(f);
+            after = inWindow ? m.actOnWindow(f) : m.act(f);
         } catch (org.steamtally.calc.alarm.AlarmActionException e) {
-            throw new AlarmActionException(e.getMessage());
+            throw new AlarmActionException(inWindow ? "window channel: " + e.getMessage() : e.getMessage());
         }
-        return view(m, after).orElseThrow(() -> new AlarmActionException("alarm " + boardId
+        return (inWindow ? windowView(m, after) : view(m, after)).orElseThrow(() -> new AlarmActionException("alarm " + boardId
                 + " returned to normal; there is nothing more to do with it"));
     }
 
     /** The dashboard's form of an engine record; empty in the normal state, which the board does not list. */
     static Optional<AlarmView> view(UnitMonitor m, AlarmRecord r) {
+        return view(m, r, r.id(), r.text());
+    }
+
+    /** {@link #view} of a window-channel record: its outside id and a text saying it is of the window mean. */
+    static Optional<AlarmView> windowView(UnitMonitor m, AlarmRecord r) {
+        return view(m, r, UnitMonitor.windowAlarmId(r.id()), m.windowAlarmText(r));
+    }
+
+    private static Optional<AlarmView> view(UnitMonitor m, AlarmRecord r, String alarmId, String text) {
         AlarmView.State state = switch (r.state()) {
             case NORMAL -> null;
             case ACTIVE_UNACKNOWLEDGED -> AlarmView.State.UNACKNOWLEDGED;
@@ -147,7 +172,7 @@ public final class EngineAlarmBoard implements AlarmBoard {
         }
         // For an equivalence set, the balances of the sensor named; the alarm text names the rest.
         List<String> balances = r.suspect().map(s -> m.balancesOf(s.sensorId())).orElse(List.of());
-        return Optional.of(new AlarmView(boardId(m.unitId(), r.id()), m.unitId(), priority, state, r.text(),
+        return Optional.of(new AlarmView(boardId(m.unitId(), alarmId), m.unitId(), priority, state, text,
                 r.stateSince(), sensor, bias, biasUnit, balances, r.shelf().map(s -> s.until()),
                 r.shelf().map(s -> s.reason())));
     }

@@ -95,7 +95,7 @@ public final class RunCommand implements Callable<Integer> {
                 DashboardConfig.defaults().sessionIdle(), DashboardConfig.defaults().maxLoginFailures(),
                 DashboardConfig.defaults().loginWindow());
         Daemon daemon = new Daemon(new Daemon.Config(files.plant(), files.alarms(), collector, dataDir, dashboard,
-                users, System.getenv(), Clock.systemUTC()));
+                users, System.getenv(), Clock.systemUTC(), files.window()));
         CountDownLatch stopped = new CountDownLatch(1);
         Runtime.getRuntime().addShutdownHook(new Thread(() -> {
             daemon.close();

@@ -31,6 +31,7 @@ import org.steamtally.calc.cycle.UnitResult;
 import org.steamtally.calc.plant.UnitDescription;
 import org.steamtally.calc.reconcile.ReconcilingEvaluator;
 import org.steamtally.dashboard.push.InMemoryLiveResults;
+import org.steamtally.deploy.config.WindowChannelSettings;
 import org.steamtally.dashboard.store.ResultStore;
 import org.steamtally.dashboard.store.StoredAlarmEvent;
 import org.steamtally.dashboard.store.StoredReconciliation;
@@ -44,6 +45,11 @@ import org.slf4j.LoggerFactory;
  * thread, since neither is thread-safe; operator actions are handed to that thread and waited for.
  * Every change of alarm state is saved to the data directory before the next snapshot is taken, so
  * that a killed daemon comes back with its alarms as they were.
+ *
+ * <p>When the window channel is on ({@link WindowChannel}), every snapshot also goes into the window
+ * mean, whose verdict the result record carries as {@code window_reconciliation} and whose alarms
+ * come from a second engine with ids of the form {@code window:<id>}; its records are
+ * {@link #windowAlarms()}, its listeners {@link #onWindowAlarmChange}, its actions {@link #actOnWindow}.
  */
 public final class UnitMonitor implements AutoCloseable {
 
@@ -62,6 +68,8 @@ public final class UnitMonitor implements AutoCloseable {
     private final UnitDescription unit;
     private final ReconcilingEvaluator evaluator;
     private final AlarmEngine engine;
+    /** Null when the window channel is off. */
+    private final WindowChannel window;
     private final SnapshotSource source;
     private final ResultStore store;
     private final InMemoryLiveResults live;
@@ -72,17 +80,42 @@ public final class UnitMonitor implements AutoCloseable {
     private final ExecutorService worker;
     private final Thread intake;
     private final List<Consumer<List<AlarmRecord>>> alarmListeners = new CopyOnWriteArrayList<>();
+    private final List<Consumer<List<AlarmRecord>>> windowAlarmListeners = new CopyOnWriteArrayList<>();
     private volatile List<AlarmRecord> alarms = List.of();
+    private volatile List<AlarmRecord> windowAlarms = List.of();
     private volatile boolean running;
     private volatile long processed;
 
+    /** A monitor of the per-snapshot channel alone (no window channel). */
     public UnitMonitor(String site, UnitDescription unit, AlarmSettings settings, SnapshotSource source,
                        ResultStore store, InMemoryLiveResults live, AlarmStateFile stateFile, MeterRegistry registry,
                        Clock clock) {
+        this(site, unit, settings, WindowChannelSettings.DEFAULTS.withEnabled(false), Duration.ofSeconds(1), source,
+                store, live, stateFile, registry, clock);
+    }
+
+    /**
+     * A monitor with the window channel as {@code window} says; its alarm state is saved beside
+     * {@code stateFile}'s, under {@code alarms/window/} of the same data directory.
+     *
+     * @param snapshotPeriod the collector's time between snapshots, which turns the window's length
+     *                       into a count of snapshots
+     */
+    public UnitMonitor(String site, UnitDescription unit, AlarmSettings settings, WindowChannelSettings window,
+                       Duration snapshotPeriod, SnapshotSource source, ResultStore store, InMemoryLiveResults live,
+                       AlarmStateFile stateFile, MeterRegistry registry, Clock clock) {
         this.site = site;
         this.unit = unit;
         this.evaluator = ReconcilingEvaluator.compile(site, unit);
         this.engine = new AlarmEngine(unit, settings, clock);
+        this.window = window.enabled() ? WindowChannel.compile(site, unit, window, snapshotPeriod,
+                stateFile.forChannel(WindowChannel.CHANNEL), clock)
+                : null;
+        if (this.window != null && window.snapshots(snapshotPeriod) * snapshotPeriod.toMillis()
+                != window.length().toMillis()) {
+            LOG.warn("unit {}: window length {} is not a whole number of snapshot periods of {}; using {} snapshots ({} s)",
+                    unit.id(), window.length(), snapshotPeriod, this.window.length(), this.window.lengthS());
+        }
         this.source = source;
         this.store = store;
         this.live = live;
@@ -104,6 +137,7 @@ public final class UnitMonitor implements AutoCloseable {
         call(() -> {
             restore();
             alarms = engine.alarms();
+            restoreWindow();
             return null;
         });
         running = true;
@@ -124,6 +158,25 @@ public final class UnitMonitor implements AutoCloseable {
             LOG.error("unit {}: alarm state not restored, starting with every alarm normal: {}", unit.id(),
                     e.getMessage());
         }
+    }
+
+    private void restoreWindow() {
+        if (window == null) {
+            return;
+        }
+        try {
+            Optional<List<String>> leftOut = window.restore();
+            if (leftOut.isPresent()) {
+                long active = window.engine().alarms().stream().filter(a -> a.state() != AlarmState.NORMAL).count();
+                LOG.info("unit {}: window alarm state restored from {} ({} alarms not normal); the window starts empty",
+                        unit.id(), window.stateFile().path(), active);
+                leftOut.get().forEach(l -> LOG.warn("unit {}: window {}", unit.id(), l));
+            }
+        } catch (IOException | IllegalArgumentException e) {
+            LOG.error("unit {}: window alarm state not restored, starting with every window alarm normal: {}",
+                    unit.id(), e.getMessage());
+        }
+        windowAlarms = window.engine().alarms();
     }
 
     public String unitId() {
@@ -155,6 +208,50 @@ public final class UnitMonitor implements AutoCloseable {
     /** Calls {@code listener} on the unit's thread with the records of the alarms that changed. */
     public void onAlarmChange(Consumer<List<AlarmRecord>> listener) {
         alarmListeners.add(listener);
+    }
+
+    /** Whether the window channel runs. */
+    public boolean hasWindow() {
+        return window != null;
+    }
+
+    /**
+     * The window channel's alarms as of the last change, with their engine ids (no {@code window:}
+     * prefix, which {@link #windowAlarmId} adds) and texts; empty when the channel is off.
+     */
+    public List<AlarmRecord> windowAlarms() {
+        return windowAlarms;
+    }
+
+    /** The id a window alarm has outside its engine (store, log, board): {@code window:<engine id>}. */
+    public static String windowAlarmId(String engineId) {
+        return WindowChannel.ID_PREFIX + engineId;
+    }
+
+    /** The text a window alarm shows outside its engine: its engine text, said to be of the window mean. */
+    public String windowAlarmText(AlarmRecord r) {
+        return window == null ? r.text() : window.text(r.text());
+    }
+
+    /** Calls {@code listener} on the unit's thread with the records (engine ids) of the window alarms that changed. */
+    public void onWindowAlarmChange(Consumer<List<AlarmRecord>> listener) {
+        windowAlarmListeners.add(listener);
+    }
+
+    /**
+     * {@link #act} on the window channel's engine; the action gets the engine's ids (no prefix).
+     *
+     * @throws IllegalStateException when the window channel is off
+     */
+    public AlarmRecord actOnWindow(java.util.function.Function<AlarmEngine, AlarmEvent> action) {
+        if (window == null) {
+            throw new IllegalStateException("unit " + unit.id() + " runs no window channel");
+        }
+        return call(() -> {
+            AlarmEvent e = action.apply(window.engine());
+            afterWindowEvents(List.of(e));
+            return window.engine().alarm(e.alarmId()).orElseThrow();
+        });
     }
 
     /**
@@ -202,6 +299,12 @@ public final class UnitMonitor implements AutoCloseable {
                     if (!expired.isEmpty()) {
                         afterEvents(expired);
                     }
+                    if (window != null) {
+                        List<AlarmEvent> windowExpired = window.engine().expireShelves();
+                        if (!windowExpired.isEmpty()) {
+                            afterWindowEvents(windowExpired);
+                        }
+                    }
                 });
                 f.get();
             } catch (InterruptedException e) {
@@ -228,10 +331,28 @@ public final class UnitMonitor implements AutoCloseable {
         } finally {
             calcTime.record(System.nanoTime() - t0, TimeUnit.NANOSECONDS);
         }
+        List<AlarmEvent> windowEvents = List.of();
+        if (window != null) {
+            long t1 = System.nanoTime();
+            try {
+                WindowChannel.Outcome w = window.evaluate(snapshot);
+                result = result.withWindowReconciliation(w.summary());
+                windowEvents = w.events();
+            } catch (RuntimeException e) {
+                // The per-snapshot result stands on its own; only the window's verdict is lost.
+                LOG.error("unit {}: window mean at {} could not be evaluated: {}", unit.id(), snapshot.timestamp(),
+                        e.toString());
+            } finally {
+                calcTime.record(System.nanoTime() - t1, TimeUnit.NANOSECONDS);
+            }
+        }
         store.writeResult(result);
         storedReconciliation(result).ifPresent(store::writeReconciliation);
         if (!events.isEmpty()) {
             afterEvents(events);
+        }
+        if (!windowEvents.isEmpty()) {
+            afterWindowEvents(windowEvents);
         }
         live.publish(result);
         processed++;
@@ -257,6 +378,32 @@ public final class UnitMonitor implements AutoCloseable {
                 l.accept(changed);
             } catch (RuntimeException ex) {
                 LOG.warn("unit {}: alarm listener failed: {}", unit.id(), ex.toString());
+            }
+        }
+    }
+
+    /** {@link #afterEvents} for the window channel: events stored and logged under their window ids. */
+    private void afterWindowEvents(List<AlarmEvent> events) {
+        List<AlarmRecord> changed = new ArrayList<>(events.size());
+        for (AlarmEvent inside : events) {
+            AlarmEvent e = window.outside(inside);
+            store.writeAlarmEvent(StoredAlarmEvent.of(site, e));
+            LOG.info("unit {}: alarm {} {} -> {} ({}): {}", unit.id(), e.alarmId(), e.from().key(), e.to().key(),
+                    e.stimulus().key(), e.text());
+            window.engine().alarm(inside.alarmId()).ifPresent(changed::add);
+        }
+        windowAlarms = window.engine().alarms();
+        try {
+            window.save();
+        } catch (IOException e) {
+            LOG.error("unit {}: window alarm state not saved to {}: {}", unit.id(), window.stateFile().path(),
+                    e.toString());
+        }
+        for (Consumer<List<AlarmRecord>> l : windowAlarmListeners) {
+            try {
+                l.accept(changed);
+            } catch (RuntimeException ex) {
+                LOG.warn("unit {}: window alarm listener failed: {}", unit.id(), ex.toString());
             }
         }
     }
@@ -303,6 +450,13 @@ public final class UnitMonitor implements AutoCloseable {
                 stateFile.save(engine.state());
             } catch (IOException e) {
                 LOG.error("unit {}: alarm state not saved on stop: {}", unit.id(), e.toString());
+            }
+            if (window != null) {
+                try {
+                    window.save();
+                } catch (IOException e) {
+                    LOG.error("unit {}: window alarm state not saved on stop: {}", unit.id(), e.toString());
+                }
             }
         });
         worker.shutdown();
