@@ -138,6 +138,8 @@ class AlarmSettingsLoaderTest {
         "duration without unit|max_shelve: 12h|max_shelve: 12",
         "override without id|- {id: \"suspect:FT-1\", limit: 3}|- {limit: 3}",
         "override id of no kind|- {id: \"closure:cycle\", limit: 4}|- {id: \"cycle\", limit: 4}",
+        "unknown key in the window subsection|    length: 40s|    lenght: 40s",
+        "per-snapshot kind in the window subsection|    length: 40s|    stale_sensor: {on_delay: 1s}",
     })
     void malformedSectionIsRejectedByTheSchema(String testCase) throws Exception {
         String[] parts = testCase.split("\\|");
