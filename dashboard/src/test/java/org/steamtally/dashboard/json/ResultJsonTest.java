@@ -40,6 +40,25 @@ class ResultJsonTest {
     }
 
     @Test
+    void aWindowVerdictIsWrittenLastAndReadBackAndARecordWithoutOneHasNoKey() {
+        UnitResult plain = ResultFixture.unit2();
+        assertFalse(ResultJson.write(plain).contains("window_reconciliation"));
+        UnitResult withWindow = plain.withWindowReconciliation(new org.steamtally.calc.cycle.WindowReconciliation(
+                50.0, 50, 12, "failed", 61.2, ResultFixture.of(11.07), 5, plain.reconciliation().suspects()));
+        String json = ResultJson.write(withWindow);
+        assertTrue(json.endsWith("\"window_reconciliation\":{\"length_s\":50.0,\"length\":50,\"samples\":12,"
+                + "\"status\":\"failed\",\"passed\":false,\"chi2\":61.2,\"chi2_limit\":11.07,\"redundancy\":5,"
+                + "\"suspects\":[{\"rank\":1,\"id\":\"FT-101\",\"unit\":\"kg/s\",\"equivalence_set\":[\"FT-101\",\"JT-001\"],"
+                + "\"test_value\":3.2,\"bias\":2.1,\"sigma_bias\":0.61,\"confirmed\":true}]}}"), json);
+        assertEquals(withWindow, ResultJson.read(json));
+        String inconsistent = json.replace("\"status\":\"failed\",\"passed\":false,\"chi2\":61.2",
+                "\"status\":\"failed\",\"passed\":true,\"chi2\":61.2");
+        ResultFormatException e = assertThrows(ResultFormatException.class, () -> ResultJson.read(inconsistent));
+        assertTrue(e.getMessage().contains("window_reconciliation: passed must be true exactly when status is passed"),
+                e.getMessage());
+    }
+
+    @Test
     void recordReadsBackEqualToTheOneWritten() {
         UnitResult written = ResultFixture.unit2();
         assertEquals(written, ResultJson.read(ResultJson.write(written)));

@@ -30,6 +30,15 @@ class LineProtocolTest {
     }
 
     @Test
+    void theWindowVerdictIsOneLineWithoutIdTagAndAbsentFieldsLeftOut() {
+        Point p = new Point(Measurement.WINDOW_RECONCILIATION, "fernholm", "unit3", null, 1795932000250L,
+                50.0, 50L, "passed", true, 4.2, 11.07, 4.2 / 11.07, 5L, null);
+        assertEquals("window_reconciliation,site=fernholm,unit=unit3 length_s=50.0,samples=50i,status=\"passed\","
+                + "passed=true,chi2=4.2,chi2_limit=11.07,chi2_ratio=" + (4.2 / 11.07) + ",redundancy=5i 1795932000250",
+                LineProtocol.line(p));
+    }
+
+    @Test
     void aPointWithoutFieldsHasNoLine() {
         assertNull(LineProtocol.line(new Point(Measurement.READINGS, "s", "u", "PT-1", 0L, null, null)));
     }

@@ -103,6 +103,21 @@ abstract class ResultStoreContractTest {
     }
 
     @Test
+    void theWindowChannelsVerdictIsStoredWithTheRecordAndReadBack() throws Exception {
+        UnitResult r = StoreFixtures.windowRecord(T0);
+        store.writeResult(r);
+        drain();
+        List<Point> back = store.points(Measurement.WINDOW_RECONCILIATION, SITE, UNIT, T0, T0.plusMillis(1));
+        assertEquals(of(ResultPoints.of(r), Measurement.WINDOW_RECONCILIATION), back);
+        Point p = back.get(0);
+        assertEquals(Boolean.FALSE, p.value("passed"));
+        // 61.2 / 11.07, the χ² over its quantile.
+        assertEquals(61.2 / 11.07, (Double) p.value("chi2_ratio"), 1e-12);
+        assertEquals("TT-311,FT-101", p.value("suspects"));
+        assertEquals(50L, p.value("samples"));
+    }
+
+    @Test
     void reconciliationAlarmEventsAndReadingsAreReadBackAsWritten() throws Exception {
         StoredReconciliation rec = StoreFixtures.reconciliation(T0, true, 3.4, false, 0.2);
         StoredAlarmEvent shelve = StoreFixtures.alarm(T0, "closure_cycle", "shelve", "unacknowledged", "shelved",

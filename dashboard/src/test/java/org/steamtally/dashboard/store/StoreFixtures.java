@@ -83,6 +83,14 @@ final class StoreFixtures {
                 rec, MetricsBasis.RAW, r.cycle());
     }
 
+    /** {@link #reconciledRecord} with a failed window-channel verdict naming TT-311, then FT-101. */
+    static UnitResult windowRecord(Instant ts) {
+        return reconciledRecord(ts).withWindowReconciliation(new org.steamtally.calc.cycle.WindowReconciliation(
+                50.0, 50, 50, ReconciliationResult.FAILED, 61.2, of(11.07), 5, List.of(
+                        new Suspect(1, "TT-311", "K", List.of("TT-311"), 8.8, of(0.33), of(0.037), false),
+                        new Suspect(2, "FT-101", "kg/s", List.of("FT-101"), 4.1, of(0.4), of(0.1), true))));
+    }
+
     static StoredReconciliation reconciliation(Instant ts, boolean flowSuspect, double flowTest, boolean tempSuspect,
             double tempTest) {
         return new StoredReconciliation(ts, SITE, UNIT, 7.3, 11.07, 5, true, List.of(
