@@ -27,6 +27,7 @@ import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.MethodOrderer;
 import org.junit.jupiter.api.Order;
 import org.junit.jupiter.api.Test;
+import org.steamtally.calc.cycle.UnitResult;
 import org.junit.jupiter.api.TestMethodOrder;
 import org.openqa.selenium.By;
 import org.openqa.selenium.JavascriptExecutor;
@@ -242,6 +243,29 @@ class DashboardPageBrowserTest {
         dash.now.set(FernholmTestPlant.T0.plusSeconds(3));
         dash.publish(1.0);
         waiting().until(d -> !text("#state-table").contains("INVALID"));
+    }
+
+    @Test
+    @Order(4)
+    void theWindowChannelsVerdictStandsBesideTheSnapshotsInWords() throws IOException {
+        driver.get(dash.baseUrl() + "/#cycle");
+        dash.now.set(FernholmTestPlant.T0.plusSeconds(4));
+        UnitResult r = dash.plant.result(dash.now.get()).withWindowReconciliation(
+                new org.steamtally.calc.cycle.WindowReconciliation(50.0, 50, 50, "failed", 61.2,
+                        java.util.OptionalDouble.of(11.07), 5, List.of(new org.steamtally.calc.cycle.Suspect(1, "TT-311",
+                                "K", List.of("TT-311", "PT-302"), 8.8, java.util.OptionalDouble.of(0.33),
+                                java.util.OptionalDouble.of(0.037), false))));
+        dash.live.publish(r);
+        waiting().until(d -> text("#checks-table").contains("Mean of the last 50 s"));
+        String table = text("#checks-table");
+        assertTrue(table.contains("Each snapshot"), table);
+        assertTrue(table.contains("FAILED"), table);
+        assertTrue(table.contains("suspect: TT-311 (or PT-302)"), table);
+        assertTrue(table.contains("χ² 61.20 of limit 11.07"), table);
+        assertBanner();
+        dash.now.set(FernholmTestPlant.T0.plusSeconds(5));
+        dash.publish(1.0);
+        waiting().until(d -> !text("#checks-table").contains("Mean of the last"));
     }
 
     @Test
