@@ -3,7 +3,10 @@ package org.steamtally.deploy.daemon;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
+import org.steamtally.calc.alarm.AlarmDefinition;
+import org.steamtally.calc.alarm.AlarmKind;
 import org.steamtally.calc.plant.UnitDescription;
+import org.steamtally.deploy.config.WindowChannelSettings;
 import org.steamtally.deploy.Launcher;
 import org.steamtally.deploy.config.PlantDescriptionException;
 import picocli.CommandLine.Command;
@@ -43,6 +46,7 @@ public final class CheckConfigCommand implements Callable<Integer> {
         }
         out.println(config + ": valid; site " + files.plant().siteId() + ", " + files.plant().units().size()
                 + " unit(s); collector section " + (files.collector().isPresent() ? "present" : "absent (run needs one)"));
+        out.println(windowLine(files.window()));
         int status = 0;
         for (UnitDescription unit : files.plant().units()) {
             try {
@@ -54,5 +58,22 @@ public final class CheckConfigCommand implements Callable<Integer> {
         }
         out.flush();
         return status;
+    }
+
+    /** One line on the window channel: off, or its length and the limits of its three alarm kinds. */
+    static String windowLine(WindowChannelSettings w) {
+        if (!w.enabled()) {
+            return "window channel: off (alarms.window.enabled: false)";
+        }
+        return String.format(java.util.Locale.ROOT,
+                "window channel: mean of the last %d s; alarm limits closure |z| %s, global test %s x chi-square"
+                        + " quantile, suspect sensor |test value| %s",
+                w.length().toSeconds(), limit(w, AlarmKind.CLOSURE), limit(w, AlarmKind.GLOBAL_TEST),
+                limit(w, AlarmKind.SUSPECT_SENSOR));
+    }
+
+    private static String limit(WindowChannelSettings w, AlarmKind kind) {
+        AlarmDefinition d = w.alarms().definition(kind);
+        return d.enabled() ? Double.toString(d.limit()) : "(off)";
     }
 }
