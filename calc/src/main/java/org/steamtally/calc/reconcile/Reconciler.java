@@ -39,7 +39,8 @@ import org.steamtally.calc.plant.UnitDescription;
  * Minimise the quality criterion Σ (v_i / u_i)² = vᵀ S_x⁻¹ v (S_x diagonal: the sensors' and the
  * declared constants' uncertainties, taken as uncorrelated) subject to f(x + v, y) = 0, where f
  * holds, for every component, its mass balance (a closed feedwater heater has two, tubes and shell),
- * for every check-flow meter m_state = m_meter, and, where it is known, its energy balance:
+ * for every check-flow meter m_state = m_meter, for every duplicate transmitter (a sensor declared
+ * {@code same_measurand_as} another) x_primary = x_duplicate, and, where it is known, its energy balance:
  * <ul>
  *   <li>adiabatic balances of open and closed feedwater heaters and mixers, Σ m_in h_in − Σ m_out h_out = 0;</li>
  *   <li>the steam side of a component against its independent measurement: turbine sections on a
@@ -101,6 +102,16 @@ public final class Reconciler {
     public static final double CONFIDENCE = 0.95;
     /** Correlation of two adjustments above which the balances cannot tell the two quantities apart. */
     public static final double EQUIVALENCE_CORRELATION = 0.99;
+    /**
+     * Correlation above which a declared duplicate pair (a sensor and its {@code same_measurand_as}
+     * partner) is reported as one equivalence set. Lower than {@link #EQUIVALENCE_CORRELATION}
+     * because for a pair the question is only which of the two is off: a bias on one gives the
+     * other a test value |ρ| times as large, so at a test value of 10 (a 3σ bias on a window mean)
+     * and |ρ| = 0.9 the two differ by 1 against a noise of √(2 (1 − |ρ|)) = 0.45 in their
+     * difference, about two standard deviations. Above 0.9 naming one of the two would be close to
+     * a coin toss, so both are named; the balances' coupling is then too weak to judge between them.
+     */
+    public static final double PAIR_EQUIVALENCE_CORRELATION = 0.9;
     /** Serial elimination removes at most this many quantities. */
     public static final int MAX_SUSPECTS = 3;
     /** Linearisations before giving up. */
@@ -139,11 +150,15 @@ public final class Reconciler {
     private static final int ROW_MOTOR = 4;
     private static final int ROW_FUEL = 5;
     private static final int ROW_METER = 6;
+    /** x_primary − x_duplicate = 0, in standard uncertainties of the difference: a duplicate transmitter. */
+    private static final int ROW_SAME = 7;
 
     private final String unitId;
     private final Sensor[] sensors;
     private final int sensorCount;
     private final boolean[] inModel;
+    /** Per sensor, the index of the sensor whose value it measures: itself, or its primary for a duplicate. */
+    private final int[] measurandOf;
     private final String[] constantId;
     private final double[] constantValue;
     private final double[] constantSigma;
@@ -180,6 +195,13 @@ public final class Reconciler {
             sensorIndex.put(sensors[i].id(), i);
         }
         inModel = new boolean[sensorCount];
+        measurandOf = new int[sensorCount];
+        for (int i = 0; i < sensorCount; i++) {
+            measurandOf[i] = i;
+            if (sensors[i].sameMeasurandAs().isPresent()) {
+                measurandOf[i] = sensor(sensorIndex, sensors[i].sameMeasurandAs().get(), sensors[i].quantity());
+            }
+        }
 
         Map<String, Integer> stateIndex = new HashMap<>();
         List<StateDefinition> flowing = new ArrayList<>();
@@ -281,6 +303,14 @@ public final class Reconciler {
                         "check flow " + s.checkFlowSensor().get() + " on " + s.id());
             }
         }
+        for (int i = 0; i < sensorCount; i++) {
+            if (measurandOf[i] != i) {
+                // x_primary − x_duplicate = 0: one more redundancy degree, which checks the pair's difference
+                addRow(kinds, states, signs, inputs, pressures, labels, ROW_SAME,
+                        new Object[] {new int[0], new double[0]}, new int[] {measurandOf[i], i}, 0.0,
+                        "same measurand " + sensors[measurandOf[i]].id() + " = " + sensors[i].id());
+            }
+        }
         for (Component c : unit.components()) {
             if (c instanceof Component.Generator g) {
                 List<String> in = new ArrayList<>();
@@ -372,7 +402,7 @@ public final class Reconciler {
     private Map<String, List<String>> participation() {
         Map<Integer, LinkedHashSet<String>> byInput = new LinkedHashMap<>();
         for (int r = 0; r < rowCount; r++) {
-            boolean energy = rowKind[r] != ROW_MASS && rowKind[r] != ROW_METER;
+            boolean energy = rowKind[r] != ROW_MASS && rowKind[r] != ROW_METER && rowKind[r] != ROW_SAME;
             String label = rowLabel[r];
             for (int j : rowStates[r]) {
                 if (flowSensor[j] >= 0) {
@@ -477,8 +507,8 @@ public final class Reconciler {
      * "check flow FT-421 on feedwater", "energy balance of condenser+cooling_water",
      * "energy balance of hp_turbine+lp_turbine+generator"), in the order the balances are built:
      * per component in the unit's order its mass and adiabatic energy balances, then the check-flow
-     * meters, then the balances against an independent measurement (generator, cooling water,
-     * motor, fuel).
+     * meters, then the duplicate transmitters ("same measurand PT-101 = PT-101B"), then the balances
+     * against an independent measurement (generator, cooling water, motor, fuel).
      *
      * <p>This is the structure of the unit's balances, worked out once by {@link #compile}: it does
      * not depend on a snapshot. Whether the sensor is redundant in a given snapshot (and so can be
@@ -715,7 +745,8 @@ public final class Reconciler {
                     pqo += a[k] * b[k];
                 }
                 double rho = pqo / Math.sqrt(projection[q] * projection[other]);
-                if (Math.abs(rho) >= EQUIVALENCE_CORRELATION) {
+                boolean pair = q < sensorCount && other < sensorCount && measurandOf[q] == measurandOf[other];
+                if (Math.abs(rho) >= (pair ? PAIR_EQUIVALENCE_CORRELATION : EQUIVALENCE_CORRELATION)) {
                     set.add(other);
                 }
             }
@@ -883,6 +914,15 @@ public final class Reconciler {
             double sum = 0.0;
             int[] js = rowStates[r];
             double[] sg = rowSigns[r];
+            if (rowKind[r] == ROW_SAME) {
+                int p = rowInputs[r][0];
+                int q = rowInputs[r][1];
+                double scale = 1.0 / Math.hypot(sigma(p), sigma(q));
+                d[p] += scale;
+                d[q] -= scale;
+                f[row++] = scale * (s.value[p] - s.value[q]);
+                continue;
+            }
             if (rowKind[r] == ROW_MASS || rowKind[r] == ROW_METER) {
                 for (int k = 0; k < js.length; k++) {
                     int j = js[k];
