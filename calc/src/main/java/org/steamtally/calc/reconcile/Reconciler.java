@@ -567,10 +567,29 @@ public final class Reconciler {
                 if (candidate < 0) {
                     break;
                 }
-                List<Integer> set = current.equivalents(candidate);
+                List<Integer> set = new ArrayList<>(current.equivalents(candidate));
                 candidate = set.get(0);
                 removed[candidate] = true;
                 Solution next = solve(measured, usable, removed);
+                // The balances cannot order the members of a set to first order, but a gross error
+                // that takes a state out of its region can: removing the wrong member then leaves
+                // a fit that does not converge or fits far worse. Name the member whose removal fits
+                // the rest best; between near-equal fits keep the order of plausibility above.
+                for (int k = 1; k < set.size(); k++) {
+                    int other = set.get(k);
+                    removed[candidate] = false;
+                    removed[other] = true;
+                    Solution alternative = solve(measured, usable, removed);
+                    if (fitsBetter(alternative, next)) {
+                        candidate = other;
+                        next = alternative;
+                    } else {
+                        removed[other] = false;
+                        removed[candidate] = true;
+                    }
+                }
+                set.remove(Integer.valueOf(candidate));
+                set.add(0, candidate);
                 OptionalDouble bias = OptionalDouble.empty();
                 OptionalDouble sigmaBias = OptionalDouble.empty();
                 if (next.converged && next.observable(candidate)) {
@@ -619,6 +638,14 @@ public final class Reconciler {
         }
         return new Reconciliation(result(base, measured, usable, suspect, suspects),
                 base.status.equals(ReconciliationResult.PASSED) ? reconciled : null, excludingSuspects);
+    }
+
+    /** A converged fit beats one that did not converge; between converged ones, a χ² lower by more than 0.1. */
+    private static boolean fitsBetter(Solution a, Solution b) {
+        if (a.converged != b.converged) {
+            return a.converged;
+        }
+        return a.converged && a.chi2 < b.chi2 - 0.1;
     }
 
     private String inputId(int q) {
