@@ -42,12 +42,13 @@ class DuplicateTransmitterSimulationTest {
         double u = 0.01e6;
         double meanP = sumP / n;
         double meanD = sumD / n;
+        int same = equal;
         assertAll(
                 () -> assertEquals(truthValue, truth.atDesign().valueSi("PT-101B"), 0.0),
                 // standard error of a mean of 400 draws: u / 20; four of them as the bound
                 () -> assertEquals(truthValue, meanP, 4 * u / 20),
                 () -> assertEquals(truthValue + bias, meanD, 4 * u / 20),
-                () -> assertEquals(0, equal, "independent noise: the two never read the same"),
+                () -> assertEquals(0, same, "independent noise: the two never read the same"),
                 () -> assertNotEquals(meanP, meanD));
     }
 }
