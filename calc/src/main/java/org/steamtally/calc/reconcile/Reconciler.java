@@ -90,8 +90,12 @@ import org.steamtally.calc.plant.UnitDescription;
  * measurement noise can separate, so the balances cannot tell them apart. Perfectly correlated
  * members have equal test values; the set is ordered by the gross error each member would need to
  * explain the data, |v_i| / (u_i P_ii) in its own standard uncertainties, smallest first, and the
- * first is the one named and removed. That order is a judgement of plausibility, not a finding of the
- * balances: the whole set is reported.
+ * first is the one named and removed, unless removing another member lets the rest fit clearly
+ * better (it converges where the first does not, or its χ² is lower by more than 0.1): a gross error
+ * that takes a state out of its region is told apart by the non-linear balances although the
+ * linearised ones cannot. That order is a judgement of plausibility, not a finding of the balances:
+ * the whole set is reported. A declared duplicate pair (a sensor and its {@code same_measurand_as}
+ * partner) is put in one set from |ρ| ≥ {@link #PAIR_EQUIVALENCE_CORRELATION}.
  *
  * <p>A {@code Reconciler} holds no per-snapshot state between calls; {@link #reconcile} allocates its
  * working arrays, so one instance may serve one thread at a time.
