@@ -151,6 +151,7 @@ public final class PlantValidator {
             for (Sensor sensor : unit.sensors()) {
                 sensors.putIfAbsent(sensor.id(), sensor);
             }
+            checkSameMeasurand();
             indexStates();
             indexComponents();
             checkStates();
@@ -213,6 +214,42 @@ public final class PlantValidator {
             return k == null ? Optional.empty() : Optional.of(unit.components().get(k));
         }
 
+        // ---- duplicate transmitters
+
+        /**
+         * A sensor declared {@code same_measurand_as} another must name a sensor of the same unit, of
+         * the same quantity, that is not itself a duplicate: pairs are star-shaped around one primary,
+         * so the primary is the value the cycle model uses and each duplicate is checked against it.
+         */
+        private void checkSameMeasurand() {
+            for (int i = 0; i < unit.sensors().size(); i++) {
+                Sensor s = unit.sensors().get(i);
+                if (s.sameMeasurandAs().isEmpty()) {
+                    continue;
+                }
+                String path = unitPath + ".sensors[" + i + "].same_measurand_as";
+                String primaryId = s.sameMeasurandAs().get();
+                Sensor primary = sensors.get(primaryId);
+                if (primary == null) {
+                    Optional<String> elsewhere = plant.units().stream()
+                            .filter(other -> other.sensor(primaryId).isPresent())
+                            .map(UnitDescription::id)
+                            .findFirst();
+                    add(path, Kind.REFERENCE, "sensor \"" + s.id() + "\" is declared the same measurand as sensor \""
+                            + primaryId + "\", which" + elsewhere.map(u -> " belongs to unit \"" + u + "\", not to unit \""
+                            + unit.id() + "\"").orElse(" is not declared"), s.id(), primaryId);
+                } else if (primary.quantity() != s.quantity()) {
+                    add(path, Kind.REFERENCE, "sensor \"" + s.id() + "\" measures " + s.quantity().label()
+                            + " but is declared the same measurand as sensor \"" + primaryId + "\", which measures "
+                            + primary.quantity().label(), s.id(), primaryId);
+                } else if (primary.isDuplicate()) {
+                    add(path, Kind.REFERENCE, "sensor \"" + s.id() + "\" is declared the same measurand as sensor \""
+                            + primaryId + "\", which is itself a duplicate of \"" + primary.sameMeasurandAs().get()
+                            + "\": name \"" + primary.sameMeasurandAs().get() + "\" instead", s.id(), primaryId);
+                }
+            }
+        }
+
         // ---- sensors named by states and components
 
         private void checkSensor(String sensorId, Quantity expected, String path, String role, String owner) {
@@ -231,6 +268,11 @@ public final class PlantValidator {
             if (!sensor.quantity().siUnit().equals(expected.siUnit())) {
                 add(path, Kind.REFERENCE, "sensor \"" + sensorId + "\" measures " + sensor.quantity().label()
                         + " but is used as " + role, sensorId, owner);
+            } else if (sensor.isDuplicate()) {
+                // the model uses the primary; the duplicate only checks it
+                add(path, Kind.REFERENCE, "sensor \"" + sensorId + "\" is a second measurement of \""
+                        + sensor.sameMeasurandAs().get() + "\" (same_measurand_as) and cannot be used as " + role
+                        + ": name \"" + sensor.sameMeasurandAs().get() + "\" here", sensorId, owner);
             }
         }
 

@@ -39,7 +39,8 @@ import org.steamtally.calc.plant.UnitDescription;
  * Minimise the quality criterion Σ (v_i / u_i)² = vᵀ S_x⁻¹ v (S_x diagonal: the sensors' and the
  * declared constants' uncertainties, taken as uncorrelated) subject to f(x + v, y) = 0, where f
  * holds, for every component, its mass balance (a closed feedwater heater has two, tubes and shell),
- * for every check-flow meter m_state = m_meter, and, where it is known, its energy balance:
+ * for every check-flow meter m_state = m_meter, for every duplicate transmitter (a sensor declared
+ * {@code same_measurand_as} another) x_primary = x_duplicate, and, where it is known, its energy balance:
  * <ul>
  *   <li>adiabatic balances of open and closed feedwater heaters and mixers, Σ m_in h_in − Σ m_out h_out = 0;</li>
  *   <li>the steam side of a component against its independent measurement: turbine sections on a
@@ -89,8 +90,12 @@ import org.steamtally.calc.plant.UnitDescription;
  * measurement noise can separate, so the balances cannot tell them apart. Perfectly correlated
  * members have equal test values; the set is ordered by the gross error each member would need to
  * explain the data, |v_i| / (u_i P_ii) in its own standard uncertainties, smallest first, and the
- * first is the one named and removed. That order is a judgement of plausibility, not a finding of the
- * balances: the whole set is reported.
+ * first is the one named and removed, unless removing another member lets the rest fit clearly
+ * better (it converges where the first does not, or its χ² is lower by more than 0.1): a gross error
+ * that takes a state out of its region is told apart by the non-linear balances although the
+ * linearised ones cannot. That order is a judgement of plausibility, not a finding of the balances:
+ * the whole set is reported. A declared duplicate pair (a sensor and its {@code same_measurand_as}
+ * partner) is put in one set from |ρ| ≥ {@link #PAIR_EQUIVALENCE_CORRELATION}.
  *
  * <p>A {@code Reconciler} holds no per-snapshot state between calls; {@link #reconcile} allocates its
  * working arrays, so one instance may serve one thread at a time.
@@ -101,6 +106,16 @@ public final class Reconciler {
     public static final double CONFIDENCE = 0.95;
     /** Correlation of two adjustments above which the balances cannot tell the two quantities apart. */
     public static final double EQUIVALENCE_CORRELATION = 0.99;
+    /**
+     * Correlation above which a declared duplicate pair (a sensor and its {@code same_measurand_as}
+     * partner) is reported as one equivalence set. Lower than {@link #EQUIVALENCE_CORRELATION}
+     * because for a pair the question is only which of the two is off: a bias on one gives the
+     * other a test value |ρ| times as large, so at a test value of 10 (a 3σ bias on a window mean)
+     * and |ρ| = 0.9 the two differ by 1 against a noise of √(2 (1 − |ρ|)) = 0.45 in their
+     * difference, about two standard deviations. Above 0.9 naming one of the two would be close to
+     * a coin toss, so both are named; the balances' coupling is then too weak to judge between them.
+     */
+    public static final double PAIR_EQUIVALENCE_CORRELATION = 0.9;
     /** Serial elimination removes at most this many quantities. */
     public static final int MAX_SUSPECTS = 3;
     /** Linearisations before giving up. */
@@ -139,11 +154,15 @@ public final class Reconciler {
     private static final int ROW_MOTOR = 4;
     private static final int ROW_FUEL = 5;
     private static final int ROW_METER = 6;
+    /** x_primary − x_duplicate = 0, in standard uncertainties of the difference: a duplicate transmitter. */
+    private static final int ROW_SAME = 7;
 
     private final String unitId;
     private final Sensor[] sensors;
     private final int sensorCount;
     private final boolean[] inModel;
+    /** Per sensor, the index of the sensor whose value it measures: itself, or its primary for a duplicate. */
+    private final int[] measurandOf;
     private final String[] constantId;
     private final double[] constantValue;
     private final double[] constantSigma;
@@ -180,6 +199,13 @@ public final class Reconciler {
             sensorIndex.put(sensors[i].id(), i);
         }
         inModel = new boolean[sensorCount];
+        measurandOf = new int[sensorCount];
+        for (int i = 0; i < sensorCount; i++) {
+            measurandOf[i] = i;
+            if (sensors[i].sameMeasurandAs().isPresent()) {
+                measurandOf[i] = sensor(sensorIndex, sensors[i].sameMeasurandAs().get(), sensors[i].quantity());
+            }
+        }
 
         Map<String, Integer> stateIndex = new HashMap<>();
         List<StateDefinition> flowing = new ArrayList<>();
@@ -281,6 +307,14 @@ public final class Reconciler {
                         "check flow " + s.checkFlowSensor().get() + " on " + s.id());
             }
         }
+        for (int i = 0; i < sensorCount; i++) {
+            if (measurandOf[i] != i) {
+                // x_primary − x_duplicate = 0: one more redundancy degree, which checks the pair's difference
+                addRow(kinds, states, signs, inputs, pressures, labels, ROW_SAME,
+                        new Object[] {new int[0], new double[0]}, new int[] {measurandOf[i], i}, 0.0,
+                        "same measurand " + sensors[measurandOf[i]].id() + " = " + sensors[i].id());
+            }
+        }
         for (Component c : unit.components()) {
             if (c instanceof Component.Generator g) {
                 List<String> in = new ArrayList<>();
@@ -372,7 +406,7 @@ public final class Reconciler {
     private Map<String, List<String>> participation() {
         Map<Integer, LinkedHashSet<String>> byInput = new LinkedHashMap<>();
         for (int r = 0; r < rowCount; r++) {
-            boolean energy = rowKind[r] != ROW_MASS && rowKind[r] != ROW_METER;
+            boolean energy = rowKind[r] != ROW_MASS && rowKind[r] != ROW_METER && rowKind[r] != ROW_SAME;
             String label = rowLabel[r];
             for (int j : rowStates[r]) {
                 if (flowSensor[j] >= 0) {
@@ -477,8 +511,8 @@ public final class Reconciler {
      * "check flow FT-421 on feedwater", "energy balance of condenser+cooling_water",
      * "energy balance of hp_turbine+lp_turbine+generator"), in the order the balances are built:
      * per component in the unit's order its mass and adiabatic energy balances, then the check-flow
-     * meters, then the balances against an independent measurement (generator, cooling water,
-     * motor, fuel).
+     * meters, then the duplicate transmitters ("same measurand PT-101 = PT-101B"), then the balances
+     * against an independent measurement (generator, cooling water, motor, fuel).
      *
      * <p>This is the structure of the unit's balances, worked out once by {@link #compile}: it does
      * not depend on a snapshot. Whether the sensor is redundant in a given snapshot (and so can be
@@ -537,10 +571,29 @@ public final class Reconciler {
                 if (candidate < 0) {
                     break;
                 }
-                List<Integer> set = current.equivalents(candidate);
+                List<Integer> set = new ArrayList<>(current.equivalents(candidate));
                 candidate = set.get(0);
                 removed[candidate] = true;
                 Solution next = solve(measured, usable, removed);
+                // The balances cannot order the members of a set to first order, but a gross error
+                // that takes a state out of its region can: removing the wrong member then leaves
+                // a fit that does not converge or fits far worse. Name the member whose removal fits
+                // the rest best; between near-equal fits keep the order of plausibility above.
+                for (int k = 1; k < set.size(); k++) {
+                    int other = set.get(k);
+                    removed[candidate] = false;
+                    removed[other] = true;
+                    Solution alternative = solve(measured, usable, removed);
+                    if (fitsBetter(alternative, next)) {
+                        candidate = other;
+                        next = alternative;
+                    } else {
+                        removed[other] = false;
+                        removed[candidate] = true;
+                    }
+                }
+                set.remove(Integer.valueOf(candidate));
+                set.add(0, candidate);
                 OptionalDouble bias = OptionalDouble.empty();
                 OptionalDouble sigmaBias = OptionalDouble.empty();
                 if (next.converged && next.observable(candidate)) {
@@ -589,6 +642,14 @@ public final class Reconciler {
         }
         return new Reconciliation(result(base, measured, usable, suspect, suspects),
                 base.status.equals(ReconciliationResult.PASSED) ? reconciled : null, excludingSuspects);
+    }
+
+    /** A converged fit beats one that did not converge; between converged ones, a χ² lower by more than 0.1. */
+    private static boolean fitsBetter(Solution a, Solution b) {
+        if (a.converged != b.converged) {
+            return a.converged;
+        }
+        return a.converged && a.chi2 < b.chi2 - 0.1;
     }
 
     private String inputId(int q) {
@@ -715,7 +776,8 @@ public final class Reconciler {
                     pqo += a[k] * b[k];
                 }
                 double rho = pqo / Math.sqrt(projection[q] * projection[other]);
-                if (Math.abs(rho) >= EQUIVALENCE_CORRELATION) {
+                boolean pair = q < sensorCount && other < sensorCount && measurandOf[q] == measurandOf[other];
+                if (Math.abs(rho) >= (pair ? PAIR_EQUIVALENCE_CORRELATION : EQUIVALENCE_CORRELATION)) {
                     set.add(other);
                 }
             }
@@ -883,6 +945,15 @@ public final class Reconciler {
             double sum = 0.0;
             int[] js = rowStates[r];
             double[] sg = rowSigns[r];
+            if (rowKind[r] == ROW_SAME) {
+                int p = rowInputs[r][0];
+                int q = rowInputs[r][1];
+                double scale = 1.0 / Math.hypot(sigma(p), sigma(q));
+                d[p] += scale;
+                d[q] -= scale;
+                f[row++] = scale * (s.value[p] - s.value[q]);
+                continue;
+            }
             if (rowKind[r] == ROW_MASS || rowKind[r] == ROW_METER) {
                 for (int k = 0; k < js.length; k++) {
                     int j = js[k];

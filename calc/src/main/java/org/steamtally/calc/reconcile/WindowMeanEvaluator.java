@@ -149,8 +149,7 @@ public final class WindowMeanEvaluator {
         double scale = 1.0 / Math.sqrt(count);
         List<Sensor> sensors = new ArrayList<>(unit.sensors().size());
         for (Sensor s : unit.sensors()) {
-            sensors.add(new Sensor(s.id(), s.quantity(), s.engineeringUnit(), s.standardUncertaintySi() * scale,
-                    s.uncertaintyBasis(), s.rangeMinSi(), s.rangeMaxSi(), s.maxAge(), s.topic()));
+            sensors.add(s.withStandardUncertaintySi(s.standardUncertaintySi() * scale));
         }
         return new UnitDescription(unit.id(), unit.name(), sensors, unit.states(), unit.components(),
                 unit.deadState());

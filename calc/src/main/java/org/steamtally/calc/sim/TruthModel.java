@@ -307,6 +307,8 @@ public final class TruthModel {
             }
         }
         derived.addAll(design.flowMeters().keySet());
+        // a duplicate transmitter reads its primary's truth (with its own noise and faults in the simulator)
+        unit.sensors().stream().filter(Sensor::isDuplicate).map(Sensor::id).forEach(derived::add);
         for (Component c : unit.components()) {
             if (c instanceof Component.Generator g) {
                 derived.add(g.powerSensor());
@@ -822,6 +824,14 @@ public final class TruthModel {
                     if (loss > 0.0) {
                         expected.put(String.join("+", g.turbines()) + "+" + g.id(), loss);
                         casingTotal += loss;
+                    }
+                }
+            }
+            for (Sensor sensor : unit.sensors()) {
+                if (sensor.isDuplicate()) {
+                    Integer primary = sensorIndex.get(sensor.sameMeasurandAs().get());
+                    if (primary != null) {
+                        put(v, set, sensor.id(), v[primary]);
                     }
                 }
             }

@@ -31,14 +31,17 @@ class BadSnapshotReconciliationTest {
     }
 
     @Test
-    void staleGeneratorPowerDropsOneDegreeOfRedundancy() {
+    void staleGeneratorPowerDropsItsBalanceAndItsDuplicatesCheck() {
         ReconciliationResult r = Reconciler.compile(UNIT).reconcile(with("JT-001", Snapshot.SensorStatus.STALE, 1.49e8))
                 .result();
         ReconciledSensor p = ReconcilerLinearTest.byId(r).get("JT-001");
         assertAll(
                 () -> assertEquals(ReconciliationResult.PASSED, r.status()),
-                () -> assertEquals(4, r.redundancy()),
+                // 26 less the generator balance and the JT-001 = JT-001B pair: the duplicate no longer
+                // has a value to be checked against
+                () -> assertEquals(24, r.redundancy()),
                 () -> assertEquals("excluded", p.redundancy()),
+                () -> assertEquals("just_determined", ReconcilerLinearTest.byId(r).get("JT-001B").redundancy()),
                 () -> assertTrue(p.measured().isEmpty()),
                 () -> assertTrue(p.reconciled().isEmpty()));
     }
@@ -51,11 +54,15 @@ class BadSnapshotReconciliationTest {
         ReconciledQuantity h = q.get("condensate_pumped.h_J_per_kg");
         assertAll(
                 () -> assertEquals(ReconciliationResult.PASSED, r.status()),
-                () -> assertEquals(4, r.redundancy()),
+                () -> assertEquals(25, r.redundancy()),
                 () -> assertTrue(h.observable()),
                 () -> assertTrue(h.sigmaReconciled().getAsDouble() > 0.0),
-                // the pressure of that state now enters no balance
-                () -> assertEquals("just_determined", ReconcilerLinearTest.byId(r).get("PT-311").redundancy()));
+                // the pressure of that state now enters no energy balance; only its duplicate checks it,
+                // and the two are checked against each other alone: r = 0.5 each
+                () -> assertEquals(Math.sqrt(0.5) * UNIT.sensors().get(RegenerativeExample.index(UNIT, "PT-311"))
+                        .standardUncertaintySi(), ReconcilerLinearTest.byId(r).get("PT-311").sigmaReconciled()
+                        .getAsDouble(), 1e-6 * UNIT.sensors().get(RegenerativeExample.index(UNIT, "PT-311"))
+                        .standardUncertaintySi()));
     }
 
     @Test
@@ -64,7 +71,7 @@ class BadSnapshotReconciliationTest {
                 .result();
         assertAll(
                 () -> assertEquals("excluded", ReconcilerLinearTest.byId(r).get("FT-501").redundancy()),
-                () -> assertEquals(4, r.redundancy()));
+                () -> assertEquals(25, r.redundancy()));
     }
 
     @Test

@@ -44,9 +44,11 @@ class BalanceParticipationTest {
         assertAll(
                 // TT-502: cooling-water outlet temperature of the condenser
                 () -> assertEquals(List.of("energy balance of condenser+cooling_water"), RECONCILER.balancesOf("TT-502")),
-                // JT-001: generator output, against hp_turbine and lp_turbine on its shaft
-                () -> assertEquals(List.of("energy balance of hp_turbine+lp_turbine+generator"),
+                // JT-001: its duplicate JT-001B, and generator output against hp_turbine and lp_turbine on its shaft
+                () -> assertEquals(List.of("same measurand JT-001 = JT-001B", "energy balance of hp_turbine+lp_turbine+generator"),
                         RECONCILER.balancesOf("JT-001")),
+                // the duplicate enters only the balance with its primary
+                () -> assertEquals(List.of("same measurand JT-001 = JT-001B"), RECONCILER.balancesOf("JT-001B")),
                 // the declared generator efficiency with its uncertainty is a quasi-measurement of the same balance
                 () -> assertEquals(List.of("energy balance of hp_turbine+lp_turbine+generator"),
                         RECONCILER.balancesOf("generator.efficiency")));
@@ -58,8 +60,9 @@ class BalanceParticipationTest {
                 // TT-411 fixes feed_pump_discharge: outlet of feed_pump (motor metered), tube inlet of hp_heater
                 () -> assertEquals(List.of("energy balance of hp_heater", "energy balance of feed_pump+motor"),
                         RECONCILER.balancesOf("TT-411")),
-                // PT-302 fixes condensate (saturated liquid): outlet of the condenser, inlet of condensate_pump
-                () -> assertEquals(List.of("energy balance of condenser+cooling_water",
+                // PT-302 fixes condensate (saturated liquid): outlet of the condenser, inlet of condensate_pump;
+                // and has a duplicate
+                () -> assertEquals(List.of("same measurand PT-302 = PT-302B", "energy balance of condenser+cooling_water",
                         "energy balance of condensate_pump+motor"), RECONCILER.balancesOf("PT-302")));
     }
 

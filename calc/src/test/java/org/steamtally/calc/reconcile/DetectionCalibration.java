@@ -57,7 +57,7 @@ public final class DetectionCalibration {
         System.out.printf(Locale.ROOT, "window %d, %.1f h, seed %d: excursions of at least 10 s per 24 h%n", window,
                 hours, seed);
         report("max closure |z|", z, from, hours, new double[] {3.0, 3.5, 4.0, 4.5, 5.0, 5.5, 6.0});
-        report("chi2 / quantile", chi, from, hours, new double[] {1.0, 1.5, 2.0, 2.5, 3.0, 3.5, 4.0});
+        report("chi2 / quantile", chi, from, hours, new double[] {1.0, 1.25, 1.5, 1.75, 1.85, 2.0, 2.5, 3.0});
         report("max test value", test, from, hours, new double[] {1.96, 2.5, 3.0, 3.5, 4.0, 4.5, 5.0, 5.5});
     }
 

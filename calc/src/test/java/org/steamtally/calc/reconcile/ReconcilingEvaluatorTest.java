@@ -43,7 +43,8 @@ class ReconcilingEvaluatorTest {
 
     @Test
     void confirmedSuspectIsReplacedByItsEstimateAndTheRawFiguresAreKeptBeside() {
-        UnitResult r = evaluate("TT-311", 5.0);
+        // checked share of TT-311 0.99: 9σ gives χ² ≈ 79, above 38.885 at the 26 degrees of the example
+        UnitResult r = evaluate("TT-311", 9.0);
         double truth = RegenerativeExample.consistentValues().get("TT-311");
         assertAll(
                 () -> assertEquals(MetricsBasis.RAW_EXCLUDING_SUSPECTS, r.metricsBasis()),

@@ -30,6 +30,15 @@ final class SmallUnit {
         return this;
     }
 
+    /** A second transmitter on the quantity of sensor {@code of}: same quantity and range, its own value and σ. */
+    SmallUnit duplicate(String id, String of, double value, double sigma) {
+        Sensor p = sensors.stream().filter(x -> x.id().equals(of)).findFirst().orElseThrow();
+        sensors.add(new Sensor(id, p.quantity(), p.engineeringUnit(), sigma, UncertaintyBasis.STANDARD, p.rangeMinSi(),
+                p.rangeMaxSi(), p.maxAge(), Optional.empty(), Optional.of(of)));
+        values.add(value);
+        return this;
+    }
+
     /** A (p, T) state with its two sensors, p_id and T_id, and optionally a flow sensor m_id. */
     SmallUnit measured(String id, double p, double t, double m, double sigmaM) {
         sensor("p_" + id, Quantity.PRESSURE, p, 0.005 * p);

@@ -640,7 +640,7 @@ public final class PlantDescriptionLoader {
 
         private Sensor readSensor(Node node, String path, UnitIndex index) {
             Map<String, Node> entries = mapping(node, path, peekId(node, "sensor"),
-                    Set.of("id", "quantity", "unit", "uncertainty", "range", "max_age", "topic"));
+                    Set.of("id", "quantity", "unit", "uncertainty", "range", "max_age", "topic", "same_measurand_as"));
             if (entries == null) {
                 return null;
             }
@@ -692,10 +692,12 @@ public final class PlantDescriptionLoader {
                 maxAge = duration(entries.get("max_age"), "max_age of " + what);
             }
             Optional<String> topic = optionalText(entries, "topic", what);
+            Optional<String> sameAs = optionalText(entries, "same_measurand_as", what);
             if (unit == null || u == null || min == null || max == null || maxAge == null) {
                 // Kept with stand-in values so that states naming it are checked; the file fails anyway.
                 return new Sensor(id, quantity, unitNode instanceof ScalarNode s ? s.getValue() : "?", 1.0,
-                        UncertaintyBasis.STANDARD, 0.0, 1.0, DEFAULT_MAX_AGE, Optional.empty());
+                        UncertaintyBasis.STANDARD, 0.0, 1.0, DEFAULT_MAX_AGE, Optional.empty(),
+                        sameAs == null ? Optional.empty() : sameAs);
             }
             double uSi = unit.uncertaintyToSi(u.basis().standardUncertainty(u.value()));
             double minSi = unit.toSi(min, atmosphericPa);
@@ -704,7 +706,8 @@ public final class PlantDescriptionLoader {
             Duration age = maxAge;
             String code = unit.code();
             UncertaintyBasis basis = u.basis();
-            Sensor sensor = construct(node, () -> new Sensor(id, q, code, uSi, basis, minSi, maxSi, age, topic));
+            Sensor sensor = construct(node, () -> new Sensor(id, q, code, uSi, basis, minSi, maxSi, age, topic,
+                    sameAs == null ? Optional.empty() : sameAs));
             if (sensor == null) {
                 index.broken.add(id);
             }

@@ -4,6 +4,7 @@ import java.io.PrintWriter;
 import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
 import java.util.TreeMap;
@@ -16,6 +17,7 @@ import org.steamtally.calc.plant.PlantDescription;
 import org.steamtally.calc.plant.Sensor;
 import org.steamtally.calc.plant.UnitDescription;
 import org.steamtally.calc.reconcile.ReconcilingEvaluator;
+import org.steamtally.calc.reconcile.Reliability;
 import org.steamtally.calc.sim.DesignPoint;
 import org.steamtally.calc.sim.TruthModel;
 import org.steamtally.calc.sim.TruthPoint;
@@ -33,7 +35,14 @@ public final class RedundancyReport {
     /** The report of one unit. */
     public record UnitReport(String unitId, String basis, String status, int redundancy, List<String> redundant,
                              List<String> justDetermined, List<String> excluded, List<String> observable,
-                             List<String> notObservable) {
+                             List<String> notObservable, List<Reliability.SensorReliability> reliability) {
+
+        /** Redundant sensors whose 3σ bias the window-mean test cannot find within a minute. */
+        public List<String> notCheckableAtTarget() {
+            return reliability.stream()
+                    .filter(s -> redundant.contains(s.id()) && !s.checkedAtTargetWithinWindow())
+                    .map(Reliability.SensorReliability::id).toList();
+        }
     }
 
     private RedundancyReport() {
@@ -75,7 +84,16 @@ public final class RedundancyReport {
             (q.reconciled().isPresent() ? observable : notObservable).add(q.id());
         }
         return new UnitReport(unit.id(), basis, rec.status() + rec.reason().map(x -> " (" + x + ")").orElse(""),
-                rec.redundancy(), redundant, just, excluded, observable, notObservable);
+                rec.redundancy(), redundant, just, excluded, observable, notObservable, reliability(unit, values));
+    }
+
+    private static List<Reliability.SensorReliability> reliability(UnitDescription unit, double[] values) {
+        try {
+            return Reliability.of(unit, values);
+        } catch (RuntimeException e) {
+            // the classification above stands on its own; the figures need a converged reconciliation
+            return List.of();
+        }
     }
 
     public static void print(UnitReport r, PrintWriter out) {
@@ -89,6 +107,32 @@ public final class RedundancyReport {
         }
         line(out, "unmeasured, observable", r.observable());
         line(out, "unmeasured, not observable", r.notObservable());
+        if (r.reliability().isEmpty()) {
+            return;
+        }
+        out.printf(Locale.ROOT, "  redundancy number r and minimum detectable bias MDB = u d0 / sqrt(n r) in standard"
+                + " uncertainties u (Baarda 1968; d0 %.2f for one snapshot, %.2f for a mean of %d):%n",
+                Reliability.DELTA0_SNAPSHOT, Reliability.DELTA0_WINDOW, Reliability.WINDOW);
+        for (Reliability.SensorReliability s : r.reliability()) {
+            if (r.redundant().contains(s.id())) {
+                out.printf(Locale.ROOT, "    %-24s r %.3f  MDB %s u per snapshot, %s u over %d snapshots%n", s.id(),
+                        s.redundancyNumber(), sigmas(s.mdbSnapshotSigmas()), sigmas(s.mdbWindowSigmas()),
+                        Reliability.WINDOW);
+            }
+        }
+        List<String> weak = r.notCheckableAtTarget();
+        if (weak.isEmpty()) {
+            out.println("  every redundant sensor: a 3 u bias is found within one window ("
+                    + Reliability.WINDOW + " snapshots)");
+        } else {
+            out.println("  cannot be checked at 3 u within one window (" + weak.size() + "): " + String.join(", ", weak));
+            out.println("    the balances see too little of these; a second transmitter on each"
+                    + " (same_measurand_as) makes the pair's difference checkable");
+        }
+    }
+
+    private static String sigmas(double v) {
+        return Double.isFinite(v) ? String.format(Locale.ROOT, "%.2f", v) : "inf";
     }
 
     private static void line(PrintWriter out, String label, List<String> ids) {

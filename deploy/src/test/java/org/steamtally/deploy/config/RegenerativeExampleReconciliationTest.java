@@ -45,14 +45,15 @@ class RegenerativeExampleReconciliationTest {
             Map.entry("JT-601", 2.6e6), Map.entry("JT-602", 250e3));
 
     @Test
-    void loadedExampleReconcilesWithEveryBalanceInstrumentAndRedundancyFive() throws Exception {
+    void loadedExampleReconcilesWithEveryBalanceInstrumentAndARedundancyOfFivePlusOnePerDuplicate() throws Exception {
         Path inModule = Path.of("examples", "regenerative.yaml");
         Path file = Files.exists(inModule) ? inModule : Path.of("deploy", "examples", "regenerative.yaml");
         UnitDescription unit = PlantDescriptionLoader.load(file).units().get(0);
         List<Sensor> sensors = unit.sensors();
         double[] values = new double[sensors.size()];
         for (int i = 0; i < values.length; i++) {
-            values[i] = NOMINAL.get(sensors.get(i).id());
+            // a duplicate transmitter reads what its primary reads
+            values[i] = NOMINAL.get(sensors.get(i).sameMeasurandAs().orElse(sensors.get(i).id()));
         }
         UnitResult result = ReconcilingEvaluator.compile("fernholm", unit)
                 .evaluate(Snapshot.allGood(Instant.parse("2026-12-01T06:30:00Z"), unit.id(), values));
@@ -60,9 +61,10 @@ class RegenerativeExampleReconciliationTest {
         assertAll(
                 () -> assertTrue(List.of("passed", "failed").contains(result.reconciliation().status()),
                         result.reconciliation().status() + " " + result.reconciliation().reason()),
-                () -> assertEquals(5, result.reconciliation().redundancy()),
-                // all 36 sensors are in the balances or fix a state; 5 declared constants have an uncertainty
-                () -> assertEquals(36 + 5, reconciled.size()),
+                // the five independent measurements, and one for each of the 21 duplicate transmitters
+                () -> assertEquals(5 + 21, result.reconciliation().redundancy()),
+                // all 57 sensors are in the balances, fix a state or check one; 5 declared constants have an uncertainty
+                () -> assertEquals(57 + 5, reconciled.size()),
                 () -> assertEquals("just_determined",
                         reconciled.stream().filter(s -> s.id().equals("PT-301")).findFirst().orElseThrow().redundancy()),
                 () -> assertTrue(reconciled.stream().filter(s -> s.id().equals("FT-421")).findFirst().orElseThrow()

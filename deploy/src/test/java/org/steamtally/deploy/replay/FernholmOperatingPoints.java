@@ -234,6 +234,12 @@ final class FernholmOperatingPoints {
         put(r, u, "JT-001", (hpWork + lpWork) * generatorEfficiency / 1e6, "MW");
         put(r, u, "JT-601", feedPumpWork / feedMotorEfficiency / 1e3, "kW");
         put(r, u, "JT-602", condensatePumpWork / condensateMotorEfficiency / 1e3, "kW");
+        // the duplicate transmitters read what their primaries read
+        for (String primary : List.of("PT-101", "TT-101", "PT-111", "TT-111", "PT-121", "TT-121", "PT-131", "TT-131",
+                "TT-151", "PT-302", "PT-311", "PT-331", "TT-341", "PT-411", "PT-421", "TT-421", "PT-431", "FT-900",
+                "JT-001", "JT-601", "JT-602")) {
+            put(r, u, primary + "B", r.get(primary), u.get(primary));
+        }
         return new ExampleOperatingPoint("regenerative.yaml", "fernholm/unit3/", r, u,
                 List.of("cycle", "hp_turbine+lp_turbine+generator", "boiler+fuel", "condensate_pump+motor",
                         "feed_pump+motor"),
