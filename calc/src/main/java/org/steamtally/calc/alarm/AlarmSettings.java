@@ -53,6 +53,23 @@ public record AlarmSettings(Map<AlarmKind, AlarmDefinition> kinds, Map<String, A
     public static final AlarmDefinition CALCULATION_INVALID_DEFAULT = new AlarmDefinition(true, AlarmPriority.LOW,
             Duration.ofSeconds(10), Duration.ofSeconds(10), 0.0, 0.0);
 
+    /**
+     * Frozen sensor: unchanged for 60 s. At 1 Hz a live transmitter's reading changes every
+     * snapshot; 60 s is six times the default max age, so a source that sends only on change, held
+     * in the snapshot until its max age, goes stale long before it looks frozen. On-delay 0: the
+     * limit is itself a time. Medium: a frozen reading looks plausible and the balances rarely see it.
+     */
+    public static final AlarmDefinition FROZEN_DEFAULT = new AlarmDefinition(true, AlarmPriority.MEDIUM,
+            Duration.ZERO, Duration.ofSeconds(10), 60.0, 0.0);
+
+    /**
+     * Erratic sensor: the scatter ratio at the quantile of white noise for a false-alarm probability
+     * of 1e-6 per snapshot (factor 1.0), cleared below 0.9 of it; on-delay 5 s, off-delay 30 s, half
+     * the window over which a fault's differences linger. Low: the reading is noisy, not wrong on average.
+     */
+    public static final AlarmDefinition ERRATIC_DEFAULT = new AlarmDefinition(true, AlarmPriority.LOW,
+            Duration.ofSeconds(5), Duration.ofSeconds(30), 1.0, 0.1);
+
     /** The longest shelf by default: one shift, so that the next crew sees what was set aside. */
     public static final Duration MAX_SHELVE_DEFAULT = Duration.ofHours(8);
 
@@ -73,7 +90,7 @@ public record AlarmSettings(Map<AlarmKind, AlarmDefinition> kinds, Map<String, A
         Map<String, AlarmDefinition> byId = new LinkedHashMap<>(overrides);
         byId.forEach((id, d) -> {
             AlarmKind kind = AlarmKind.ofId(id).orElseThrow(() -> new IllegalArgumentException("alarm id \"" + id
-                    + "\" does not start with a kind's prefix (closure:, reconciliation:, suspect:, stale:, range:, invalid:)"));
+                    + "\" does not start with a kind's prefix (closure:, reconciliation:, suspect:, stale:, range:, invalid:, frozen:, erratic:)"));
             d.checkFor(kind, "alarm " + id);
         });
         overrides = java.util.Collections.unmodifiableMap(byId);
@@ -92,6 +109,8 @@ public record AlarmSettings(Map<AlarmKind, AlarmDefinition> kinds, Map<String, A
         kinds.put(AlarmKind.STALE_SENSOR, STALE_DEFAULT);
         kinds.put(AlarmKind.OUT_OF_RANGE, OUT_OF_RANGE_DEFAULT);
         kinds.put(AlarmKind.CALCULATION_INVALID, CALCULATION_INVALID_DEFAULT);
+        kinds.put(AlarmKind.FROZEN_SENSOR, FROZEN_DEFAULT);
+        kinds.put(AlarmKind.ERRATIC_SENSOR, ERRATIC_DEFAULT);
         return kinds;
     }
 

@@ -184,7 +184,7 @@ public final class AlarmSettingsLoader {
                 AlarmKind kind = AlarmKind.ofId(id).orElse(null);
                 if (kind == null) {
                     problem(idNode, "alarm id \"" + id + "\" names no kind of alarm (ids start with closure:, "
-                            + "reconciliation:, suspect:, stale:, range:, invalid:state:, invalid:component:)");
+                            + "reconciliation:, suspect:, stale:, range:, invalid:state:, invalid:component:, frozen:, erratic:)");
                     continue;
                 }
                 if (!checkSubject(idNode, id, kind)) {
@@ -209,7 +209,7 @@ public final class AlarmSettingsLoader {
             String missing = switch (kind) {
                 case GLOBAL_TEST -> id.equals(AlarmKind.GLOBAL_TEST_ID) ? null
                         : "the one global-test alarm is \"" + AlarmKind.GLOBAL_TEST_ID + "\"";
-                case SUSPECT_SENSOR, STALE_SENSOR, OUT_OF_RANGE -> sensors.contains(subject) ? null
+                case SUSPECT_SENSOR, STALE_SENSOR, OUT_OF_RANGE, FROZEN_SENSOR, ERRATIC_SENSOR -> sensors.contains(subject) ? null
                         : "no sensor \"" + subject + "\" is declared";
                 case CALCULATION_INVALID -> {
                     if (subject.startsWith("state:")) {
