@@ -30,6 +30,9 @@ import org.steamtally.calc.cycle.Snapshot;
 import org.steamtally.calc.cycle.UnitResult;
 import org.steamtally.calc.plant.UnitDescription;
 import org.steamtally.calc.reconcile.ReconcilingEvaluator;
+import org.steamtally.calc.signal.SignalCheck;
+import org.steamtally.calc.signal.SignalReport;
+import org.steamtally.calc.signal.SignalSettings;
 import org.steamtally.dashboard.push.InMemoryLiveResults;
 import org.steamtally.dashboard.store.ResultStore;
 import org.steamtally.dashboard.store.StoredAlarmEvent;
@@ -62,6 +65,8 @@ public final class UnitMonitor implements AutoCloseable {
     private final UnitDescription unit;
     private final ReconcilingEvaluator evaluator;
     private final AlarmEngine engine;
+    /** Each sensor's own signal (frozen value, excess scatter), tested before the balances see it. */
+    private final SignalCheck signals;
     private final SnapshotSource source;
     private final ResultStore store;
     private final InMemoryLiveResults live;
@@ -83,6 +88,7 @@ public final class UnitMonitor implements AutoCloseable {
         this.unit = unit;
         this.evaluator = ReconcilingEvaluator.compile(site, unit);
         this.engine = new AlarmEngine(unit, settings, clock);
+        this.signals = AlarmEngine.signalCheck(unit, settings, SignalSettings.DEFAULTS);
         this.source = source;
         this.store = store;
         this.live = live;
@@ -219,8 +225,16 @@ public final class UnitMonitor implements AutoCloseable {
         UnitResult result;
         List<AlarmEvent> events;
         try {
-            result = evaluator.evaluate(snapshot);
+            SignalReport signal = signals.check(snapshot);
+            List<AlarmEvent> signalEvents = engine.evaluateSignals(signal);
+            // A sensor failing its signal test is left out of the balances as a stale one is.
+            result = evaluator.evaluate(signal.excludingFailed(snapshot));
             events = engine.evaluate(snapshot, result, ReconciliationInput.from(result.reconciliation()));
+            if (!signalEvents.isEmpty()) {
+                List<AlarmEvent> all = new ArrayList<>(signalEvents);
+                all.addAll(events);
+                events = all;
+            }
         } catch (RuntimeException e) {
             LOG.error("unit {}: snapshot at {} could not be evaluated: {}", unit.id(), snapshot.timestamp(),
                     e.toString());

@@ -78,7 +78,7 @@ class AlarmSettingsLoaderTest {
         assertEquals(Duration.ofMinutes(2),
                 s.definitionOf(AlarmKind.GLOBAL_TEST, AlarmKind.GLOBAL_TEST_ID).offDelay());
         assertEquals(3.0, s.definitionOf(AlarmKind.SUSPECT_SENSOR, "suspect:FT-1").limit());
-        assertEquals(6, s.overrides().size());
+        assertEquals(7, s.overrides().size());
     }
 
     @Test
@@ -96,6 +96,32 @@ class AlarmSettingsLoaderTest {
                 + " must be below the limit 3.0") + 1;
         assertTrue(e.getMessage().contains(file + ":" + closureLine + ":12: alarms.closure: deadband 3.5 must be below"
                 + " the limit 3.0, else the alarm could never clear"), e.getMessage());
+    }
+
+    @Test
+    void signalAlarmsAreReadWithTheirLimitsAndPerSensorOverrides() throws Exception {
+        AlarmSettings s = AlarmSettingsLoader.load(resource("alarms-full.yaml"));
+        assertEquals(AlarmSettings.FROZEN_DEFAULT.withLimit(120.0).withDelays(Duration.ZERO, Duration.ofSeconds(20)),
+                s.definition(AlarmKind.FROZEN_SENSOR));
+        assertEquals(AlarmSettings.ERRATIC_DEFAULT.withLimit(1.2).withPriority(AlarmPriority.MEDIUM),
+                s.definition(AlarmKind.ERRATIC_SENSOR));
+        assertEquals(900.0, s.definitionOf(AlarmKind.FROZEN_SENSOR, "frozen:FT-1").limit());
+        assertEquals(120.0, s.definitionOf(AlarmKind.FROZEN_SENSOR, "frozen:JT-1").limit());
+    }
+
+    @Test
+    void badSignalAlarmSettingsNameTheValueAndTheSensor() throws Exception {
+        String base = Files.readString(resource("valid-minimal.yaml"));
+        PlantDescriptionException e = assertThrows(PlantDescriptionException.class,
+                () -> AlarmSettingsLoader.parse("x.yaml", base + "alarms:\n  frozen_sensor: {limit: -5}\n"));
+        assertTrue(e.getMessage().contains("limit of alarms.frozen_sensor must be positive, was -5.0"), e.getMessage());
+        e = assertThrows(PlantDescriptionException.class,
+                () -> AlarmSettingsLoader.parse("x.yaml", base + "alarms:\n  erratic_sensor: {limit: often}\n"));
+        assertTrue(e.getMessage().contains("limit of alarms.erratic_sensor must be a number"), e.getMessage());
+        assertTrue(e.getMessage().contains("often"), e.getMessage());
+        e = assertThrows(PlantDescriptionException.class, () -> AlarmSettingsLoader.parse("x.yaml",
+                base + "alarms:\n  overrides:\n    - {id: \"erratic:PT-99\", limit: 2}\n"));
+        assertTrue(e.getMessage().contains("alarm id \"erratic:PT-99\": no sensor \"PT-99\" is declared"), e.getMessage());
     }
 
     @Test
@@ -155,7 +181,9 @@ class AlarmSettingsLoaderTest {
                 AlarmKind.SUSPECT_SENSOR, "high 10s 60s 1.96 0.25",
                 AlarmKind.STALE_SENSOR, "low 5s 5s 0.0 0.0",
                 AlarmKind.OUT_OF_RANGE, "medium 5s 10s 0.0 0.02",
-                AlarmKind.CALCULATION_INVALID, "low 10s 10s 0.0 0.0");
+                AlarmKind.CALCULATION_INVALID, "low 10s 10s 0.0 0.0",
+                AlarmKind.FROZEN_SENSOR, "medium 0s 10s 60.0 0.0",
+                AlarmKind.ERRATIC_SENSOR, "low 5s 30s 1.0 0.1");
         documented.forEach((kind, row) -> {
             AlarmDefinition d = AlarmSettings.DEFAULTS.definition(kind);
             assertEquals(row, d.priority().key() + " " + d.onDelay().toSeconds() + "s " + d.offDelay().toSeconds() + "s "
