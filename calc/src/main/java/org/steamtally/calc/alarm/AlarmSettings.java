@@ -64,7 +64,7 @@ public record AlarmSettings(Map<AlarmKind, AlarmDefinition> kinds, Map<String, A
 
     /**
      * Erratic sensor: the scatter ratio at the quantile of white noise for a false-alarm probability
-     * of 1e-6 per snapshot (factor 1.0), cleared below 0.9 of it; on-delay 5 s, off-delay 30 s, half
+     * of 1e-7 per snapshot and sensor (factor 1.0), cleared below 0.9 of it; on-delay 5 s, off-delay 30 s, half
      * the window over which a fault's differences linger. Low: the reading is noisy, not wrong on average.
      */
     public static final AlarmDefinition ERRATIC_DEFAULT = new AlarmDefinition(true, AlarmPriority.LOW,

@@ -74,7 +74,7 @@ class SignalAlarmLifeCycleTest {
         AlarmEngine engine = new AlarmEngine(OneClosureUnit.unit(), settings, clock);
         SignalCheck check = AlarmEngine.signalCheck(OneClosureUnit.unit(), settings, signal);
         double limit = signal.scatterQuantile();
-        // ±40 kPa jumps: every difference is cut at 25 × 2e6 Pa², ratio 25, far above the limit (about 10)
+        // ±40 kPa jumps: every difference is cut at 25 × 2e6 Pa², ratio 25, far above the limit (about 13)
         assertTrue(limit < 25.0, "limit " + limit);
         double sign = 1.0;
         // the window is full at the fifth reading (t = 4 s); the on-delay then runs to t = 9 s

@@ -22,7 +22,7 @@ import org.steamtally.calc.sim.TruthModel;
  * and at 0.8 and 0.9 of it, and the largest ratio seen. See docs/DETECTION.md; run with
  *
  * <pre>
- * java -cp calc/target/classes:calc/target/test-classes org.steamtally.calc.signal.SignalCalibration [days] [seed] [window]
+ * java -cp calc/target/classes:calc/target/test-classes org.steamtally.calc.signal.SignalCalibration [days] [seed] [window] [probability]
  * </pre>
  */
 public final class SignalCalibration {
@@ -46,7 +46,10 @@ public final class SignalCalibration {
         UnitDescription unit = RegenerativeExample.unit();
         TruthModel truth = TruthModel.of(unit, RegenerativeExample.designPoint());
         Simulator sim = Simulator.builder(truth).seed(seed).build();
-        SignalSettings settings = SignalSettings.DEFAULTS.withWindow(window);
+        double p = args.length > 3 ? Double.parseDouble(args[3]) : SignalSettings.FALSE_ALARM_PROBABILITY_DEFAULT;
+        SignalSettings d = SignalSettings.DEFAULTS.withWindow(window);
+        SignalSettings settings = new SignalSettings(d.windowReadings(), d.warmUpReadings(), d.learningReadings(), p,
+                d.declaredNoiseSi(), d.resolutionSi());
         StepClock clock = new StepClock();
         Instant t0 = clock.now;
         AlarmEngine engine = new AlarmEngine(unit, AlarmSettings.DEFAULTS, clock);
