@@ -6,6 +6,8 @@ import java.util.LinkedHashMap;
 import java.util.Map;
 import java.util.Objects;
 
+import org.steamtally.calc.signal.SignalSettings;
+
 /**
  * The alarm settings of a plant: one definition per kind, optional definitions for single alarms by
  * id, and the longest an operator may shelve an alarm. Read from the {@code alarms} section of the
@@ -16,9 +18,12 @@ import java.util.Objects;
  * @param overrides definitions for single alarms, by alarm id (e.g. {@code "closure:cycle"}); each
  *                  checked against the kind its id names
  * @param maxShelve the longest shelf an operator may set, &gt; 0
+ * @param signal    how the signal check behind {@link AlarmKind#FROZEN_SENSOR} and
+ *                  {@link AlarmKind#ERRATIC_SENSOR} is made: window, warm-up, declared noise and
+ *                  resolution per sensor ({@link SignalSettings#DEFAULTS} unless given)
  */
 public record AlarmSettings(Map<AlarmKind, AlarmDefinition> kinds, Map<String, AlarmDefinition> overrides,
-                            Duration maxShelve) {
+                            Duration maxShelve, SignalSettings signal) {
 
     /**
      * Closure: raised at |z| ≥ 3, cleared below 2.5. For a normal residual whose uncertainty is
@@ -76,7 +81,19 @@ public record AlarmSettings(Map<AlarmKind, AlarmDefinition> kinds, Map<String, A
     /** The settings of a plant description without an {@code alarms} section. */
     public static final AlarmSettings DEFAULTS = new AlarmSettings(defaultKinds(), Map.of(), MAX_SHELVE_DEFAULT);
 
+    /** Settings with the signal check's defaults. */
+    public AlarmSettings(Map<AlarmKind, AlarmDefinition> kinds, Map<String, AlarmDefinition> overrides,
+                         Duration maxShelve) {
+        this(kinds, overrides, maxShelve, SignalSettings.DEFAULTS);
+    }
+
+    /** The same settings with another signal check. */
+    public AlarmSettings withSignal(SignalSettings newSignal) {
+        return new AlarmSettings(kinds, overrides, maxShelve, newSignal);
+    }
+
     public AlarmSettings {
+        Objects.requireNonNull(signal, "signal");
         EnumMap<AlarmKind, AlarmDefinition> all = new EnumMap<>(AlarmKind.class);
         all.putAll(kinds);
         for (AlarmKind kind : AlarmKind.values()) {

@@ -1,8 +1,10 @@
 package org.steamtally.calc.signal;
 
+import java.util.HashMap;
 import java.util.Map;
 import java.util.Objects;
 
+import org.steamtally.calc.plant.UnitDescription;
 import org.steamtally.calc.reconcile.ChiSquare;
 
 /**
@@ -78,6 +80,27 @@ public record SignalSettings(int windowReadings, int warmUpReadings, int learnin
                 throw new IllegalArgumentException("sensor " + id + ": resolution must be a number ≥ 0, was " + v);
             }
         });
+    }
+
+    /**
+     * The same settings with only the declarations of the unit's own sensors: a site's settings
+     * declare sensors of all its units, a check is made per unit.
+     */
+    public SignalSettings forUnit(UnitDescription unit) {
+        Map<String, Double> noise = new HashMap<>();
+        declaredNoiseSi.forEach((id, v) -> {
+            if (unit.sensor(id).isPresent()) {
+                noise.put(id, v);
+            }
+        });
+        Map<String, Double> resolution = new HashMap<>();
+        resolutionSi.forEach((id, v) -> {
+            if (unit.sensor(id).isPresent()) {
+                resolution.put(id, v);
+            }
+        });
+        return new SignalSettings(windowReadings, warmUpReadings, learningReadings, falseAlarmProbability, noise,
+                resolution);
     }
 
     /** The same settings with another window. */

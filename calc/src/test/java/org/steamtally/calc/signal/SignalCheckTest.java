@@ -193,6 +193,17 @@ class SignalCheckTest {
     }
 
     @Test
+    void aSitesDeclarationsAreNarrowedToEachUnitsOwnSensors() {
+        SignalSettings site = SignalSettings.DEFAULTS.withDeclaredNoise(Map.of("TT-1", 0.1, "TT-9", 0.2))
+                .withResolution(Map.of("TT-9", 0.01));
+        SignalSettings unit = site.forUnit(oneSensor());
+        assertEquals(Map.of("TT-1", 0.1), unit.declaredNoiseSi());
+        assertEquals(Map.of(), unit.resolutionSi());
+        // the declared noise ends the warm-up at once: 2σ² = 0.02 K² from the first reading
+        assertEquals(0.02, feed(new SignalCheck(oneSensor(), unit, 60.0, 1.0), 0, 400.0).expectedMssdSi2(), 1e-15);
+    }
+
+    @Test
     void badSettingsAreRefusedNamingTheValue() {
         IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
                 () -> SignalSettings.DEFAULTS.withWindow(2));

@@ -32,7 +32,6 @@ import org.steamtally.calc.plant.UnitDescription;
 import org.steamtally.calc.reconcile.ReconcilingEvaluator;
 import org.steamtally.calc.signal.SignalCheck;
 import org.steamtally.calc.signal.SignalReport;
-import org.steamtally.calc.signal.SignalSettings;
 import org.steamtally.dashboard.push.InMemoryLiveResults;
 import org.steamtally.dashboard.store.ResultStore;
 import org.steamtally.dashboard.store.StoredAlarmEvent;
@@ -88,7 +87,7 @@ public final class UnitMonitor implements AutoCloseable {
         this.unit = unit;
         this.evaluator = ReconcilingEvaluator.compile(site, unit);
         this.engine = new AlarmEngine(unit, settings, clock);
-        this.signals = AlarmEngine.signalCheck(unit, settings, SignalSettings.DEFAULTS);
+        this.signals = AlarmEngine.signalCheck(unit, settings, settings.signal().forUnit(unit));
         this.source = source;
         this.store = store;
         this.live = live;

@@ -110,6 +110,39 @@ class AlarmSettingsLoaderTest {
     }
 
     @Test
+    void signalCheckSettingsAreReadWithNoiseAndResolutionInTheSensorsOwnUnit() throws Exception {
+        AlarmSettings s = AlarmSettingsLoader.load(resource("alarms-full.yaml"));
+        assertEquals(120, s.signal().windowReadings());
+        assertEquals(600, s.signal().warmUpReadings());
+        assertEquals(7200, s.signal().learningReadings());
+        // PT-2 is declared in kPa: 0.02 kPa = 20 Pa, 0.001 kPa = 1 Pa; TT-1 in Cel: a difference, 0.05 K
+        assertEquals(20.0, s.signal().declaredNoiseSi().get("PT-2"), 1e-12);
+        assertEquals(1.0, s.signal().resolutionSi().get("PT-2"), 1e-12);
+        assertEquals(0.05, s.signal().declaredNoiseSi().get("TT-1"), 1e-12);
+        assertEquals(java.util.Map.of("PT-2", 1.0), s.signal().resolutionSi());
+    }
+
+    @Test
+    void badSignalCheckSettingsNameTheValue() throws Exception {
+        String base = Files.readString(resource("alarms-full.yaml"));
+        PlantDescriptionException e = assertThrows(PlantDescriptionException.class, () -> AlarmSettingsLoader.parse(
+                "x.yaml", base.replace("{id: PT-2, noise: 0.02,", "{id: PT-2, noise: -0.02,")));
+        assertTrue(e.getMessage().contains("noise of PT-2 in alarms.signal_check must be positive"), e.getMessage());
+        assertTrue(e.getMessage().contains("was -0.02"), e.getMessage());
+        e = assertThrows(PlantDescriptionException.class, () -> AlarmSettingsLoader.parse("x.yaml",
+                base.replace("{id: TT-1, noise: 0.05}", "{id: TT-99, noise: 0.05}")));
+        assertTrue(e.getMessage().contains("alarms.signal_check.sensors: no sensor \"TT-99\" is declared"), e.getMessage());
+        e = assertThrows(PlantDescriptionException.class, () -> AlarmSettingsLoader.parse("x.yaml",
+                base.replace("window: 120", "window: 2")));
+        assertTrue(e.getMessage().contains("the scatter window must hold 3 to 100000 readings, was 2"), e.getMessage());
+        e = assertThrows(PlantDescriptionException.class, () -> AlarmSettingsLoader.parse("x.yaml",
+                base.replace("warm_up: 600", "warm_up: 10min")));
+        assertTrue(e.getMessage().contains("warm_up of alarms.signal_check must be a whole number of readings"),
+                e.getMessage());
+        assertTrue(e.getMessage().contains("10min"), e.getMessage());
+    }
+
+    @Test
     void badSignalAlarmSettingsNameTheValueAndTheSensor() throws Exception {
         String base = Files.readString(resource("valid-minimal.yaml"));
         PlantDescriptionException e = assertThrows(PlantDescriptionException.class,
@@ -164,6 +197,8 @@ class AlarmSettingsLoaderTest {
         "duration without unit|max_shelve: 12h|max_shelve: 12",
         "override without id|- {id: \"suspect:FT-1\", limit: 3}|- {limit: 3}",
         "override id of no kind|- {id: \"closure:cycle\", limit: 4}|- {id: \"cycle\", limit: 4}",
+        "signal-check window as a duration|window: 120|window: 2min",
+        "signal-check sensor without id|- {id: TT-1, noise: 0.05}|- {noise: 0.05}",
     })
     void malformedSectionIsRejectedByTheSchema(String testCase) throws Exception {
         String[] parts = testCase.split("\\|");
