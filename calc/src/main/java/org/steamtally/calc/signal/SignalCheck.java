@@ -189,7 +189,11 @@ public final class SignalCheck {
                 ratio = Math.max(0.0, sum / count / expected);
                 scatter = ratio >= scatterLimit ? SignalVerdict.FAIL : SignalVerdict.PASS;
             }
-            if (!Double.isNaN(d2) && frozen != SignalVerdict.FAIL && scatter != SignalVerdict.FAIL) {
+            if (frozen == SignalVerdict.FAIL && !warm) {
+                // Held readings are no history of the sensor's scatter: warm up afresh once it moves.
+                learned = 0;
+                expected = 0.0;
+            } else if (!Double.isNaN(d2) && frozen != SignalVerdict.FAIL && scatter != SignalVerdict.FAIL) {
                 learn(d2, settings);
             }
             return new SensorSignal(id, frozenS, frozenLimitS, frozen, ratio, scatterLimit, scatter, expected);
@@ -216,6 +220,13 @@ public final class SignalCheck {
         }
 
         private void learn(double d2, SignalSettings settings) {
+            if (warm && !(expected > 0.0)) {
+                // Nothing learned (a sensor that has not moved since it started): one difference
+                // would be a poor expected value, so the warm-up starts afresh.
+                warm = false;
+                learned = 0;
+                expected = 0.0;
+            }
             if (!warm) {
                 learned++;
                 expected += (d2 - expected) / learned;
@@ -224,12 +235,7 @@ public final class SignalCheck {
                 }
                 return;
             }
-            if (expected > 0.0) {
-                expected += (Math.min(d2, CLIP * expected) - expected) / settings.learningReadings();
-            } else {
-                // Nothing learned yet (a sensor that never moved): start afresh from this difference.
-                expected = d2;
-            }
+            expected += (Math.min(d2, CLIP * expected) - expected) / settings.learningReadings();
         }
     }
 }

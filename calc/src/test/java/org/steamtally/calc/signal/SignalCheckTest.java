@@ -160,6 +160,24 @@ class SignalCheckTest {
     }
 
     @Test
+    void aSensorThatStartsMovingOnlyAfterTheWarmUpIsLearnedAfreshNotJudgedOnOneDifference() {
+        SignalSettings settings = SignalSettings.DEFAULTS.withWindow(10).withWarmUp(100);
+        // held for 200 s from the start: frozen from 60 s on, so what was learned before is dropped
+        SignalCheck check = new SignalCheck(oneSensor(), settings, 60.0, 1.0);
+        for (int t = 0; t < 200; t++) {
+            assertEquals(SignalVerdict.NOT_DECIDED, feed(check, t, 400.0).scatter());
+        }
+        Random random = new Random(11L);
+        for (int t = 200; t < 600; t++) {
+            SensorSignal s = feed(check, t, 400.0 + random.nextGaussian());
+            assertTrue(s.scatter() != SignalVerdict.FAIL, "second " + t + ": ratio " + s.scatterRatio());
+            if (t < 300) {
+                assertEquals(SignalVerdict.NOT_DECIDED, s.scatter(), "second " + t + ": warming up afresh");
+            }
+        }
+    }
+
+    @Test
     void aSensorWithoutAGoodValueIsNotDecidedAndNothingIsNaN() {
         SignalCheck check = new SignalCheck(oneSensor(), SignalSettings.DEFAULTS, 60.0, 1.0);
         SensorSignal s = check.check(new Snapshot(T0, "u1", new double[] {Double.NaN},
