@@ -20,6 +20,9 @@ import java.util.Objects;
  * <li>suspect sensor: |test value| of the individual test, deadband in the same;</li>
  * <li>out of range: no limit (0; the sensor's plausible range is the limit), deadband as a fraction
  *     of the range's span, below 0.5;</li>
+ * <li>frozen sensor: seconds unchanged, deadband in seconds;</li>
+ * <li>erratic sensor: a factor on the scatter ratio's quantile (1.0 alarms at it), deadband in the
+ *     same factor;</li>
  * <li>stale sensor and calculation invalid: yes/no conditions, limit and deadband 0.</li>
  * </ul>
  *

@@ -21,6 +21,11 @@ import org.steamtally.calc.plant.Component;
 import org.steamtally.calc.plant.Sensor;
 import org.steamtally.calc.plant.StateDefinition;
 import org.steamtally.calc.plant.UnitDescription;
+import org.steamtally.calc.signal.SensorSignal;
+import org.steamtally.calc.signal.SignalCheck;
+import org.steamtally.calc.signal.SignalReport;
+import org.steamtally.calc.signal.SignalSettings;
+import org.steamtally.calc.signal.SignalVerdict;
 
 /**
  * The alarms of one unit: from each snapshot, its result record and the reconciliation's verdict to
@@ -70,6 +75,8 @@ public final class AlarmEngine {
     private final String[] componentIds;
     private final Alarm[] componentInvalid;
     private final Alarm global;
+    private final Alarm[] frozen;
+    private final Alarm[] erratic;
     private final Map<String, Alarm> closures = new HashMap<>();
     private final List<Alarm> closureList = new ArrayList<>();
     private final Map<String, Alarm> suspects = new HashMap<>();
@@ -118,6 +125,23 @@ public final class AlarmEngine {
             componentInvalid[c] = create(AlarmKind.CALCULATION_INVALID, componentIds[c], false, now);
         }
         global = create(AlarmKind.GLOBAL_TEST, "global", false, now);
+        frozen = new Alarm[sensors.length];
+        erratic = new Alarm[sensors.length];
+        for (int i = 0; i < sensors.length; i++) {
+            frozen[i] = create(AlarmKind.FROZEN_SENSOR, sensors[i].id(), false, now);
+            erratic[i] = create(AlarmKind.ERRATIC_SENSOR, sensors[i].id(), false, now);
+        }
+    }
+
+    /**
+     * A signal check of a unit whose limits are the alarm settings' own: each sensor's frozen-value
+     * limit is the limit of its {@code frozen:} alarm, in seconds, and its scatter factor that of its
+     * {@code erratic:} alarm, so that the check's verdicts and the alarms agree.
+     */
+    public static SignalCheck signalCheck(UnitDescription unit, AlarmSettings settings, SignalSettings signal) {
+        return new SignalCheck(unit, signal,
+                id -> settings.definitionOf(AlarmKind.FROZEN_SENSOR, alarmId(AlarmKind.FROZEN_SENSOR, id)).limit(),
+                id -> settings.definitionOf(AlarmKind.ERRATIC_SENSOR, alarmId(AlarmKind.ERRATIC_SENSOR, id)).limit());
     }
 
     /** The unit's id. */
@@ -157,7 +181,8 @@ public final class AlarmEngine {
             return null;
         }
         Sensor sensor = kind == AlarmKind.SUSPECT_SENSOR || kind == AlarmKind.STALE_SENSOR
-                || kind == AlarmKind.OUT_OF_RANGE ? sensorsById.get(subject) : null;
+                || kind == AlarmKind.OUT_OF_RANGE || kind == AlarmKind.FROZEN_SENSOR || kind == AlarmKind.ERRATIC_SENSOR
+                ? sensorsById.get(subject) : null;
         Alarm alarm = new Alarm(id, kind, subject, sensor, aboutState, definition, now);
         byId.put(id, alarm);
         all.add(alarm);
@@ -202,7 +227,8 @@ public final class AlarmEngine {
         if (alarm == null) {
             throw new AlarmActionException("unit " + unitId + " has no alarm \"" + alarmId + "\" (ids are "
                     + "closure:<closure id>, reconciliation:global, suspect:<sensor>, stale:<sensor>, "
-                    + "range:<sensor>, invalid:state:<state>, invalid:component:<component>; a closure's alarm exists"
+                    + "range:<sensor>, invalid:state:<state>, invalid:component:<component>, frozen:<sensor>, "
+                    + "erratic:<sensor>; a closure's alarm exists"
                 + " once the closure has been computed; a disabled alarm has none)");
         }
         return alarm;
@@ -249,6 +275,64 @@ public final class AlarmEngine {
             hold(global, nowMs);
             for (int k = 0; k < suspectList.size(); k++) {
                 suspectList.get(k).hold(nowMs);
+            }
+        }
+        return drain();
+    }
+
+    /**
+     * Updates the frozen-sensor and erratic-sensor alarms from a signal check of one snapshot, and
+     * expires shelves whose time is up. A test that did not decide keeps its alarm as it is, as a
+     * missing input does for the other kinds; the stale alarm says why.
+     *
+     * @param report the signal check's report, from {@link #signalCheck} with this engine's settings
+     * @return the events of the changes of state, in order; an empty immutable list when nothing changed
+     * @throws IllegalArgumentException when the report is of another unit or its sensors are not the
+     *                                  unit's, in order; nothing is changed
+     */
+    public List<AlarmEvent> evaluateSignals(SignalReport report) {
+        List<SensorSignal> list = report.sensors();
+        if (!report.unitId().equals(unitId) || list.size() != sensors.length) {
+            throw new IllegalArgumentException("alarm engine of unit " + unitId + " with " + sensors.length
+                    + " sensors was given the signal report of unit " + report.unitId() + " with " + list.size());
+        }
+        for (int i = 0; i < sensors.length; i++) {
+            if (!list.get(i).sensorId().equals(sensors[i].id())) {
+                throw new IllegalArgumentException("unit " + unitId + ": signal report has sensor "
+                        + list.get(i).sensorId() + " where the unit has " + sensors[i].id());
+            }
+        }
+        events = null;
+        Instant now = clock.instant();
+        long nowMs = now.toEpochMilli();
+        expire(now);
+        for (int i = 0; i < sensors.length; i++) {
+            SensorSignal s = list.get(i);
+            Alarm f = frozen[i];
+            if (f != null) {
+                if (s.frozen() == SignalVerdict.NOT_DECIDED) {
+                    f.noValue();
+                    f.hold(nowMs);
+                } else {
+                    f.value(s.frozenS(), s.frozenLimitS());
+                    if (f.observe(nowMs, f.above(s.frozenS(), s.frozenLimitS(), f.definition.deadband()))) {
+                        conditionChanged(f, now);
+                    }
+                }
+            }
+            Alarm e = erratic[i];
+            if (e != null) {
+                if (s.scatter() == SignalVerdict.NOT_DECIDED) {
+                    e.noValue();
+                    e.hold(nowMs);
+                } else {
+                    // The deadband is a factor on the quantile, like the limit: scale it the same way.
+                    double band = e.definition.deadband() * s.scatterLimit() / e.definition.limit();
+                    e.value(s.scatterRatio(), s.scatterLimit());
+                    if (e.observe(nowMs, e.above(s.scatterRatio(), s.scatterLimit(), band))) {
+                        conditionChanged(e, now);
+                    }
+                }
             }
         }
         return drain();

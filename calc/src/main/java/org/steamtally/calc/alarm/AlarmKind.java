@@ -21,7 +21,18 @@ public enum AlarmKind {
      * A state or component that could not be computed from good inputs: id
      * {@code invalid:state:<state id>} or {@code invalid:component:<component id>}.
      */
-    CALCULATION_INVALID("invalid:");
+    CALCULATION_INVALID("invalid:"),
+    /**
+     * A sensor whose reading has not changed (beyond its resolution) for longer than the limit, in
+     * seconds: id {@code frozen:<sensor id>}. From the signal check, docs/DETECTION.md.
+     */
+    FROZEN_SENSOR("frozen:"),
+    /**
+     * A sensor whose reading-to-reading scatter (mean square successive difference over the expected
+     * one) is at or above the limit, a factor on the scatter quantile: id {@code erratic:<sensor id>}.
+     * From the signal check, docs/DETECTION.md.
+     */
+    ERRATIC_SENSOR("erratic:");
 
     /** The id of the one global-test alarm of a unit. */
     public static final String GLOBAL_TEST_ID = "reconciliation:global";
@@ -54,7 +65,8 @@ public enum AlarmKind {
 
     /** Whether its condition is a value against a limit, so that a limit and a deadband apply. */
     public boolean hasLimit() {
-        return this == CLOSURE || this == GLOBAL_TEST || this == SUSPECT_SENSOR;
+        return this == CLOSURE || this == GLOBAL_TEST || this == SUSPECT_SENSOR || this == FROZEN_SENSOR
+                || this == ERRATIC_SENSOR;
     }
 
     /** Whether a deadband applies (the limit kinds, and the range check, whose limits are the sensor's). */

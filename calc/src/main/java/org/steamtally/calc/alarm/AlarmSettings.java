@@ -6,6 +6,8 @@ import java.util.LinkedHashMap;
 import java.util.Map;
 import java.util.Objects;
 
+import org.steamtally.calc.signal.SignalSettings;
+
 /**
  * The alarm settings of a plant: one definition per kind, optional definitions for single alarms by
  * id, and the longest an operator may shelve an alarm. Read from the {@code alarms} section of the
@@ -16,9 +18,12 @@ import java.util.Objects;
  * @param overrides definitions for single alarms, by alarm id (e.g. {@code "closure:cycle"}); each
  *                  checked against the kind its id names
  * @param maxShelve the longest shelf an operator may set, &gt; 0
+ * @param signal    how the signal check behind {@link AlarmKind#FROZEN_SENSOR} and
+ *                  {@link AlarmKind#ERRATIC_SENSOR} is made: window, warm-up, declared noise and
+ *                  resolution per sensor ({@link SignalSettings#DEFAULTS} unless given)
  */
 public record AlarmSettings(Map<AlarmKind, AlarmDefinition> kinds, Map<String, AlarmDefinition> overrides,
-                            Duration maxShelve) {
+                            Duration maxShelve, SignalSettings signal) {
 
     /**
      * Closure: raised at |z| ≥ 3, cleared below 2.5. For a normal residual whose uncertainty is
@@ -53,13 +58,42 @@ public record AlarmSettings(Map<AlarmKind, AlarmDefinition> kinds, Map<String, A
     public static final AlarmDefinition CALCULATION_INVALID_DEFAULT = new AlarmDefinition(true, AlarmPriority.LOW,
             Duration.ofSeconds(10), Duration.ofSeconds(10), 0.0, 0.0);
 
+    /**
+     * Frozen sensor: unchanged for 60 s. At 1 Hz a live transmitter's reading changes every
+     * snapshot; 60 s is six times the default max age, so a source that sends only on change, held
+     * in the snapshot until its max age, goes stale long before it looks frozen. On-delay 0: the
+     * limit is itself a time. Medium: a frozen reading looks plausible and the balances rarely see it.
+     */
+    public static final AlarmDefinition FROZEN_DEFAULT = new AlarmDefinition(true, AlarmPriority.MEDIUM,
+            Duration.ZERO, Duration.ofSeconds(10), 60.0, 0.0);
+
+    /**
+     * Erratic sensor: the scatter ratio at the quantile of white noise for a false-alarm probability
+     * of 1e-7 per snapshot and sensor (factor 1.0), cleared below 0.9 of it; on-delay 5 s, off-delay 30 s, half
+     * the window over which a fault's differences linger. Low: the reading is noisy, not wrong on average.
+     */
+    public static final AlarmDefinition ERRATIC_DEFAULT = new AlarmDefinition(true, AlarmPriority.LOW,
+            Duration.ofSeconds(5), Duration.ofSeconds(30), 1.0, 0.1);
+
     /** The longest shelf by default: one shift, so that the next crew sees what was set aside. */
     public static final Duration MAX_SHELVE_DEFAULT = Duration.ofHours(8);
 
     /** The settings of a plant description without an {@code alarms} section. */
     public static final AlarmSettings DEFAULTS = new AlarmSettings(defaultKinds(), Map.of(), MAX_SHELVE_DEFAULT);
 
+    /** Settings with the signal check's defaults. */
+    public AlarmSettings(Map<AlarmKind, AlarmDefinition> kinds, Map<String, AlarmDefinition> overrides,
+                         Duration maxShelve) {
+        this(kinds, overrides, maxShelve, SignalSettings.DEFAULTS);
+    }
+
+    /** The same settings with another signal check. */
+    public AlarmSettings withSignal(SignalSettings newSignal) {
+        return new AlarmSettings(kinds, overrides, maxShelve, newSignal);
+    }
+
     public AlarmSettings {
+        Objects.requireNonNull(signal, "signal");
         EnumMap<AlarmKind, AlarmDefinition> all = new EnumMap<>(AlarmKind.class);
         all.putAll(kinds);
         for (AlarmKind kind : AlarmKind.values()) {
@@ -73,7 +107,7 @@ public record AlarmSettings(Map<AlarmKind, AlarmDefinition> kinds, Map<String, A
         Map<String, AlarmDefinition> byId = new LinkedHashMap<>(overrides);
         byId.forEach((id, d) -> {
             AlarmKind kind = AlarmKind.ofId(id).orElseThrow(() -> new IllegalArgumentException("alarm id \"" + id
-                    + "\" does not start with a kind's prefix (closure:, reconciliation:, suspect:, stale:, range:, invalid:)"));
+                    + "\" does not start with a kind's prefix (closure:, reconciliation:, suspect:, stale:, range:, invalid:, frozen:, erratic:)"));
             d.checkFor(kind, "alarm " + id);
         });
         overrides = java.util.Collections.unmodifiableMap(byId);
@@ -92,6 +126,8 @@ public record AlarmSettings(Map<AlarmKind, AlarmDefinition> kinds, Map<String, A
         kinds.put(AlarmKind.STALE_SENSOR, STALE_DEFAULT);
         kinds.put(AlarmKind.OUT_OF_RANGE, OUT_OF_RANGE_DEFAULT);
         kinds.put(AlarmKind.CALCULATION_INVALID, CALCULATION_INVALID_DEFAULT);
+        kinds.put(AlarmKind.FROZEN_SENSOR, FROZEN_DEFAULT);
+        kinds.put(AlarmKind.ERRATIC_SENSOR, ERRATIC_DEFAULT);
         return kinds;
     }
 

@@ -52,6 +52,8 @@ final class AlarmText {
             case STALE_SENSOR -> stale(a);
             case OUT_OF_RANGE -> range(a);
             case CALCULATION_INVALID -> invalid(a);
+            case FROZEN_SENSOR -> frozen(a);
+            case ERRATIC_SENSOR -> erratic(a);
         };
     }
 
@@ -129,5 +131,23 @@ final class AlarmText {
     private static String invalid(Alarm a) {
         String name = (a.aboutState ? "state \"" : "component \"") + a.subject + "\"";
         return a.reason == null ? name + " is valid" : name + " is invalid: " + a.reason;
+    }
+
+    private static String frozen(Alarm a) {
+        String name = "sensor " + a.subject;
+        if (!a.hasValue) {
+            return name + ": no good reading to test for a frozen value";
+        }
+        return name + (a.pending ? " is frozen" : " moves") + ": unchanged for " + number(a.value) + " s (limit "
+                + number(a.limit) + " s)";
+    }
+
+    private static String erratic(Alarm a) {
+        String name = "sensor " + a.subject;
+        if (!a.hasValue) {
+            return name + ": scatter not tested (too few readings, or still learning its normal scatter)";
+        }
+        return name + (a.pending ? " is erratic" : " scatters normally") + ": successive-difference scatter "
+                + number(a.value) + " times its normal (limit " + number(a.limit) + ")";
     }
 }

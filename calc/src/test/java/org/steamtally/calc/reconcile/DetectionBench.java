@@ -25,6 +25,9 @@ import org.steamtally.calc.cycle.Suspect;
 import org.steamtally.calc.cycle.UnitResult;
 import org.steamtally.calc.plant.UnitDescription;
 import org.steamtally.calc.fixture.RegenerativeExample;
+import org.steamtally.calc.signal.SignalCheck;
+import org.steamtally.calc.signal.SignalReport;
+import org.steamtally.calc.signal.SignalSettings;
 import org.steamtally.calc.sim.Fault;
 import org.steamtally.calc.sim.SimulatedSample;
 import org.steamtally.calc.sim.Simulator;
@@ -117,8 +120,12 @@ public final class DetectionBench {
         }
     }
 
-    /** False alarms over a fault-free run. */
-    record FalseAlarms(double hours, int energyBalance, int suspect, int other) {
+    /** False alarms over a fault-free run; {@code signal} counts the frozen- and erratic-sensor alarms. */
+    record FalseAlarms(double hours, int energyBalance, int suspect, int other, int signal) {
+
+        double signalPer24h() {
+            return signal * 24.0 / hours;
+        }
 
         double energyBalancePer24h() {
             return energyBalance * 24.0 / hours;
@@ -134,6 +141,13 @@ public final class DetectionBench {
     private final WindowMeanEvaluator evaluator;
     private final AlarmSettings settings;
     private final int lead;
+    /**
+     * The signal check's settings, or null when the trials run without it; with it, each trial
+     * first runs {@link #signalWarmUp} snapshots through the signal check alone, so that its expected
+     * scatter is learned before the window and the fault begin.
+     */
+    private final SignalSettings signal;
+    private final int signalWarmUp;
     private final List<String> redundant;
     private final Map<String, Double> checkedShare = new LinkedHashMap<>();
     private final Map<String, Double> windowShare = new LinkedHashMap<>();
@@ -143,12 +157,23 @@ public final class DetectionBench {
      * @param settings the alarm engine's settings
      */
     DetectionBench(int window, AlarmSettings settings) {
+        this(window, settings, null);
+    }
+
+    /**
+     * @param signal the signal check's settings; null for none. Without declared noise, the trials
+     *               run its whole warm-up first.
+     */
+    DetectionBench(int window, AlarmSettings settings, SignalSettings signal) {
+        this.signal = signal;
+        this.signalWarmUp = signal == null ? 0 : signal.declaredNoiseSi().isEmpty()
+                ? signal.warmUpReadings() + signal.windowReadings() : signal.windowReadings();
         unit = RegenerativeExample.unit();
         truth = TruthModel.of(unit, RegenerativeExample.designPoint());
         evaluator = WindowMeanEvaluator.compile("fernholm", unit, window);
         this.settings = settings;
         // the window is full, and every alarm settled, before the fault starts
-        lead = window + LEAD_S;
+        lead = signalWarmUp + window + LEAD_S;
         UnitResult clean = ReconcilingEvaluator.compile("fernholm", unit)
                 .evaluate(Simulator.builder(truth).noiseFactor(0.0).build().step(T0).snapshot());
         List<String> ids = new ArrayList<>();
@@ -218,6 +243,7 @@ public final class DetectionBench {
                 .fault(kind.fault(sensor, start, k, probe.sigmaOf(sensor))).build();
         StepClock clock = new StepClock();
         AlarmEngine alarms = new AlarmEngine(unit, settings, clock);
+        SignalCheck check = signal == null ? null : AlarmEngine.signalCheck(unit, settings, signal);
         evaluator.clear();
         boolean detected = false;
         double seconds = Double.NaN;
@@ -226,9 +252,20 @@ public final class DetectionBench {
         for (int s = 0; s <= lead + WATCH_S && right == null; s++) {
             clock.now = T0.plusSeconds(s);
             SimulatedSample sample = sim.step(clock.now);
-            UnitResult result = evaluator.evaluate(sample.snapshot());
-            List<AlarmEvent> events = alarms.evaluate(sample.snapshot(), result,
-                    ReconciliationInput.from(result.reconciliation()));
+            List<AlarmEvent> signalEvents = List.of();
+            Snapshot snapshot = sample.snapshot();
+            if (check != null) {
+                SignalReport report = check.check(snapshot);
+                signalEvents = alarms.evaluateSignals(report);
+                // As the daemon does: a sensor that fails its signal test is left out like a stale one.
+                snapshot = report.excludingFailed(snapshot);
+                if (s < signalWarmUp) {
+                    continue;
+                }
+            }
+            UnitResult result = evaluator.evaluate(snapshot);
+            List<AlarmEvent> events = new ArrayList<>(signalEvents);
+            events.addAll(alarms.evaluate(sample.snapshot(), result, ReconciliationInput.from(result.reconciliation())));
             if (s < lead) {
                 continue;
             }
@@ -253,7 +290,7 @@ public final class DetectionBench {
     /** The sensor an alarm names: suspect, stale and out-of-range alarms name one; the balance alarms none. */
     static Optional<String> namedSensor(AlarmEvent e) {
         return switch (e.kind()) {
-            case SUSPECT_SENSOR, STALE_SENSOR, OUT_OF_RANGE ->
+            case SUSPECT_SENSOR, STALE_SENSOR, OUT_OF_RANGE, FROZEN_SENSOR, ERRATIC_SENSOR ->
                     Optional.of(e.alarmId().substring(e.kind().idPrefix().length()));
             default -> Optional.empty();
         };
@@ -353,28 +390,41 @@ public final class DetectionBench {
         Simulator sim = Simulator.builder(truth).seed(seed).build();
         StepClock clock = new StepClock();
         AlarmEngine alarms = new AlarmEngine(unit, settings, clock);
+        SignalCheck check = signal == null ? null : AlarmEngine.signalCheck(unit, settings, signal);
         evaluator.clear();
         int balance = 0;
         int suspect = 0;
         int other = 0;
+        int signalAlarms = 0;
         long steps = Math.round(hours * 3600.0);
         for (long s = 0; s < steps; s++) {
             clock.now = T0.plusSeconds(s);
             SimulatedSample sample = sim.step(clock.now);
-            UnitResult result = evaluator.evaluate(sample.snapshot());
-            for (AlarmEvent e : alarms.evaluate(sample.snapshot(), result,
-                    ReconciliationInput.from(result.reconciliation()))) {
+            Snapshot snapshot = sample.snapshot();
+            List<AlarmEvent> events = new ArrayList<>();
+            if (check != null) {
+                SignalReport report = check.check(snapshot);
+                events.addAll(alarms.evaluateSignals(report));
+                snapshot = report.excludingFailed(snapshot);
+            }
+            UnitResult result = evaluator.evaluate(snapshot);
+            events.addAll(alarms.evaluate(sample.snapshot(), result, ReconciliationInput.from(result.reconciliation())));
+            for (AlarmEvent e : events) {
                 if (e.stimulus() != AlarmStimulus.CONDITION_ACTIVE) {
                     continue;
                 }
                 switch (e.kind()) {
                     case CLOSURE, GLOBAL_TEST -> balance++;
                     case SUSPECT_SENSOR -> suspect++;
+                    case FROZEN_SENSOR, ERRATIC_SENSOR -> {
+                        signalAlarms++;
+                        System.out.println("false signal alarm at " + clock.now + ": " + e.text());
+                    }
                     default -> other++;
                 }
             }
         }
-        return new FalseAlarms(hours, balance, suspect, other);
+        return new FalseAlarms(hours, balance, suspect, other, signalAlarms);
     }
 
     static final double[] SIZES = {2.0, 3.0, 5.0};
@@ -383,7 +433,11 @@ public final class DetectionBench {
      * Arguments, all optional: trials per sensor and size (10), fault-free hours (24), seed
      * (20261202), window length ({@link #WINDOW}; 1 evaluates each snapshot alone with the default
      * alarm settings), then closure limit, global-test factor and suspect limit (the WINDOW_ constants
-     * for a window, the defaults for 1), then a comma-separated list of fault kinds (all).
+     * for a window, the defaults for 1), then a comma-separated list of fault kinds (all), then the
+     * signal check: {@code none} (the default), {@code learned} (default settings, learned from a
+     * full warm-up in every trial) or {@code declared} (each sensor's noise declared as its standard
+     * uncertainty, which is the simulator's noise), then a comma-separated list of fault sizes in
+     * standard uncertainties ({@link #SIZES}).
      */
     public static void main(String[] args) {
         int trials = args.length > 0 ? Integer.parseInt(args[0]) : 10;
@@ -395,10 +449,23 @@ public final class DetectionBench {
                 ? windowSettings(WINDOW_CLOSURE_LIMIT, WINDOW_GLOBAL_FACTOR, WINDOW_SUSPECT_LIMIT) : AlarmSettings.DEFAULTS;
         List<Kind> kinds = args.length > 7 ? Arrays.stream(args[7].split(",")).map(k -> Kind.valueOf(
                 k.toUpperCase(Locale.ROOT))).toList() : List.of(Kind.values());
-        double[] sizes = args.length > 8 ? Arrays.stream(args[8].split(",")).mapToDouble(Double::parseDouble).toArray()
+        String signalMode = args.length > 8 ? args[8] : "none";
+        SignalSettings signal = switch (signalMode) {
+            case "none" -> null;
+            case "learned" -> SignalSettings.DEFAULTS;
+            case "declared" -> SignalSettings.DEFAULTS.withDeclaredNoise(RegenerativeExample.unit().sensors().stream()
+                    .collect(java.util.stream.Collectors.toMap(x -> x.id(), x -> x.standardUncertaintySi())));
+            default -> throw new IllegalArgumentException("signal check must be none, learned or declared, not "
+                    + signalMode);
+        };
+        double[] sizes = args.length > 9 ? Arrays.stream(args[9].split(",")).mapToDouble(Double::parseDouble).toArray()
                 : SIZES;
         long began = System.nanoTime();
-        DetectionBench bench = new DetectionBench(window, settings);
+        DetectionBench bench = new DetectionBench(window, settings, signal);
+        System.out.println("signal check: " + signalMode + (signal == null ? "" : String.format(Locale.ROOT,
+                " (window %d, warm-up %d, scatter limit %.3f, frozen limit %.0f s)", signal.windowReadings(),
+                signal.warmUpReadings(), signal.scatterQuantile(),
+                settings.definition(AlarmKind.FROZEN_SENSOR).limit())));
         System.out.printf(Locale.ROOT, "window %d snapshots; limits closure %.2f, global %.2f x quantile, suspect %.2f;"
                 + " %d trials per sensor and size; seed %d%n", window, settings.definition(AlarmKind.CLOSURE).limit(),
                 settings.definition(AlarmKind.GLOBAL_TEST).limit(), settings.definition(AlarmKind.SUSPECT_SENSOR).limit(),
@@ -433,8 +500,8 @@ public final class DetectionBench {
         }
         FalseAlarms fa = bench.falseAlarms(hours, seed ^ 0x5DEECE66DL);
         System.out.printf(Locale.ROOT, "fault-free %.1f h: %d energy-balance alarms (%.2f per 24 h), %d suspect alarms"
-                + " (%.2f per 24 h), %d others%n", fa.hours(), fa.energyBalance(), fa.energyBalancePer24h(), fa.suspect(),
-                fa.suspectPer24h(), fa.other());
+                + " (%.2f per 24 h), %d frozen/erratic alarms (%.2f per 24 h), %d others%n", fa.hours(), fa.energyBalance(),
+                fa.energyBalancePer24h(), fa.suspect(), fa.suspectPer24h(), fa.signal(), fa.signalPer24h(), fa.other());
         System.out.printf(Locale.ROOT, "wall time %.0f s%n", (System.nanoTime() - began) / 1e9);
     }
 

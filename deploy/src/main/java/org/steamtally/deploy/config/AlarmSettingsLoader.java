@@ -4,6 +4,7 @@ import java.nio.file.Path;
 import java.time.Duration;
 import java.util.ArrayList;
 import java.util.EnumMap;
+import java.util.HashMap;
 import java.util.HashSet;
 import java.util.LinkedHashMap;
 import java.util.LinkedHashSet;
@@ -20,6 +21,9 @@ import org.steamtally.calc.alarm.AlarmDefinition;
 import org.steamtally.calc.alarm.AlarmKind;
 import org.steamtally.calc.alarm.AlarmPriority;
 import org.steamtally.calc.alarm.AlarmSettings;
+import org.steamtally.calc.signal.SignalSettings;
+import org.steamtally.collector.units.EngineeringUnit;
+import org.steamtally.collector.units.Units;
 import org.yaml.snakeyaml.nodes.MappingNode;
 import org.yaml.snakeyaml.nodes.Node;
 import org.yaml.snakeyaml.nodes.NodeTuple;
@@ -41,6 +45,10 @@ import org.yaml.snakeyaml.nodes.SequenceNode;
  *     - {id: "closure:cycle", limit: 4}
  *     - {id: "stale:TT-101", enabled: false}
  *   window: {length: 50s, closure: {limit: 4.5}, global_test: {limit: 3.0}, suspect_sensor: {limit: 4.0}}
+ *   signal_check:
+ *     window: 60
+ *     sensors:
+ *       - {id: TT-502, noise: 0.05, resolution: 0.01}   # in the sensor's own unit
  * </pre>
  *
  * The {@code window} subsection configures the window channel ({@link WindowChannelSettings}); it is
@@ -55,6 +63,7 @@ public final class AlarmSettingsLoader {
     private static final String OVERRIDES = "overrides";
     /** The window channel's subsection (docs/ALARMS.md, window-mean alarms). */
     public static final String WINDOW = "window";
+    private static final String SIGNAL_CHECK = "signal_check";
     /** Durations as this section has always taken them, the unit in any letter case (10S, 2MIN). */
     private static final Pattern DURATION = Pattern.compile("(\\d+(?:\\.\\d+)?)\\s*(ms|s|min|h)",
             Pattern.CASE_INSENSITIVE);
@@ -143,6 +152,8 @@ public final class AlarmSettingsLoader {
         private final Set<String> states = new HashSet<>();
         private final Set<String> components = new HashSet<>();
         WindowChannelSettings window = WindowChannelSettings.DEFAULTS;
+        /** Each sensor's unit as the file spells it, for the signal check's noise and resolution. */
+        private final Map<String, String> sensorUnits = new HashMap<>();
 
         Reading(String file, Node root) {
             this.file = file;
@@ -165,6 +176,7 @@ public final class AlarmSettingsLoader {
             allowed.add(MAX_SHELVE);
             allowed.add(OVERRIDES);
             allowed.add(WINDOW);
+            allowed.add(SIGNAL_CHECK);
             Map<String, Node> entries = mapping(section, "the alarms section", allowed);
             if (entries == null) {
                 return AlarmSettings.DEFAULTS;
@@ -193,8 +205,10 @@ public final class AlarmSettingsLoader {
             if (entries.containsKey(OVERRIDES)) {
                 readOverrides(entries.get(OVERRIDES), kinds, overrides);
             }
+            SignalSettings signal = entries.containsKey(SIGNAL_CHECK) ? signalCheck(entries.get(SIGNAL_CHECK))
+                    : SignalSettings.DEFAULTS;
             try {
-                return new AlarmSettings(kinds, overrides, maxShelve);
+                return new AlarmSettings(kinds, overrides, maxShelve, signal);
             } catch (IllegalArgumentException e) {
                 // Each definition was checked where it was read; this catches what is left.
                 problem(section, e.getMessage());
@@ -294,6 +308,106 @@ public final class AlarmSettingsLoader {
             return null;
         }
 
+        /** The signal check's settings; the defaults, with problems, where they cannot be used. */
+        private SignalSettings signalCheck(Node node) {
+            SignalSettings d = SignalSettings.DEFAULTS;
+            if (isNull(node)) {
+                return d;
+            }
+            String what = "alarms." + SIGNAL_CHECK;
+            Map<String, Node> entries = mapping(node, what,
+                    new LinkedHashSet<>(List.of("window", "warm_up", "learning", "sensors")));
+            if (entries == null) {
+                return d;
+            }
+            int window = readings(entries.get("window"), "window of " + what, d.windowReadings());
+            int warmUp = readings(entries.get("warm_up"), "warm_up of " + what, d.warmUpReadings());
+            int learning = readings(entries.get("learning"), "learning of " + what, d.learningReadings());
+            Map<String, Double> noise = new LinkedHashMap<>();
+            Map<String, Double> resolution = new LinkedHashMap<>();
+            Node list = entries.get("sensors");
+            if (list != null && !isNull(list)) {
+                if (!(list instanceof SequenceNode seq)) {
+                    problem(list, what + ".sensors must be a list of {id: ..., noise: ..., resolution: ...} entries, not "
+                            + describe(list));
+                } else {
+                    Set<String> seen = new HashSet<>();
+                    for (Node item : seq.getValue()) {
+                        signalSensor(item, what, seen, noise, resolution);
+                    }
+                }
+            }
+            try {
+                return new SignalSettings(window, warmUp, learning, d.falseAlarmProbability(), noise, resolution);
+            } catch (IllegalArgumentException e) {
+                problem(node, what + ": " + e.getMessage());
+                return d;
+            }
+        }
+
+        private void signalSensor(Node item, String what, Set<String> seen, Map<String, Double> noise,
+                                  Map<String, Double> resolution) {
+            Map<String, Node> m = mapping(item, "an entry of " + what + ".sensors",
+                    new LinkedHashSet<>(List.of("id", "noise", "resolution")));
+            if (m == null) {
+                return;
+            }
+            Node idNode = m.get("id");
+            if (!(idNode instanceof ScalarNode idScalar) || idScalar.getValue().isBlank()) {
+                problem(item, "an entry of " + what + ".sensors lacks the key \"id\" (a sensor id)");
+                return;
+            }
+            String id = idScalar.getValue().strip();
+            if (!sensors.contains(id)) {
+                problem(idNode, what + ".sensors: no sensor \"" + id + "\" is declared");
+                return;
+            }
+            if (!seen.add(id)) {
+                problem(idNode, what + ".sensors: sensor \"" + id + "\" is listed twice");
+                return;
+            }
+            // In the sensor's own unit, converted as its uncertainty is (the scale alone). A unit the
+            // plant-description loader rejects is reported there; the value is then left out here.
+            EngineeringUnit unit = null;
+            try {
+                unit = sensorUnits.containsKey(id) ? Units.parse(sensorUnits.get(id)) : null;
+            } catch (IllegalArgumentException e) {
+                unit = null;
+            }
+            if (m.containsKey("noise")) {
+                Double v = number(m.get("noise"), "noise of " + id + " in " + what);
+                if (v != null && !(v > 0.0)) {
+                    problem(m.get("noise"), "noise of " + id + " in " + what + " must be positive (a standard deviation"
+                            + " in the sensor's unit), was " + v);
+                } else if (v != null && unit != null) {
+                    noise.put(id, unit.uncertaintyToSi(v));
+                }
+            }
+            if (m.containsKey("resolution")) {
+                Double v = number(m.get("resolution"), "resolution of " + id + " in " + what);
+                if (v != null && v < 0.0) {
+                    problem(m.get("resolution"), "resolution of " + id + " in " + what + " must not be negative, was " + v);
+                } else if (v != null && unit != null) {
+                    resolution.put(id, unit.uncertaintyToSi(v));
+                }
+            }
+        }
+
+        /** A whole number of readings, ≥ 1, or the default after a problem. */
+        private int readings(Node node, String what, int fallback) {
+            if (node == null) {
+                return fallback;
+            }
+            if (node instanceof ScalarNode scalar && scalar.getValue().strip().matches("\\d{1,9}")) {
+                int n = Integer.parseInt(scalar.getValue().strip());
+                if (n >= 1) {
+                    return n;
+                }
+            }
+            problem(node, what + " must be a whole number of readings, at least 1, not " + describe(node));
+            return fallback;
+        }
+
         private void readOverrides(Node node, Map<AlarmKind, AlarmDefinition> kinds,
                                    Map<String, AlarmDefinition> overrides) {
             if (!(node instanceof SequenceNode seq)) {
@@ -315,7 +429,7 @@ public final class AlarmSettingsLoader {
                 AlarmKind kind = AlarmKind.ofId(id).orElse(null);
                 if (kind == null) {
                     problem(idNode, "alarm id \"" + id + "\" names no kind of alarm (ids start with closure:, "
-                            + "reconciliation:, suspect:, stale:, range:, invalid:state:, invalid:component:)");
+                            + "reconciliation:, suspect:, stale:, range:, invalid:state:, invalid:component:, frozen:, erratic:)");
                     continue;
                 }
                 if (!checkSubject(idNode, id, kind)) {
@@ -340,7 +454,7 @@ public final class AlarmSettingsLoader {
             String missing = switch (kind) {
                 case GLOBAL_TEST -> id.equals(AlarmKind.GLOBAL_TEST_ID) ? null
                         : "the one global-test alarm is \"" + AlarmKind.GLOBAL_TEST_ID + "\"";
-                case SUSPECT_SENSOR, STALE_SENSOR, OUT_OF_RANGE -> sensors.contains(subject) ? null
+                case SUSPECT_SENSOR, STALE_SENSOR, OUT_OF_RANGE, FROZEN_SENSOR, ERRATIC_SENSOR -> sensors.contains(subject) ? null
                         : "no sensor \"" + subject + "\" is declared";
                 case CALCULATION_INVALID -> {
                     if (subject.startsWith("state:")) {
@@ -498,6 +612,13 @@ public final class AlarmSettingsLoader {
             }
             for (Node unit : unitList.getValue()) {
                 collect(child(unit, "sensors"), sensors);
+                if (child(unit, "sensors") instanceof SequenceNode list) {
+                    for (Node sensor : list.getValue()) {
+                        if (child(sensor, "id") instanceof ScalarNode id && child(sensor, "unit") instanceof ScalarNode u) {
+                            sensorUnits.put(id.getValue().strip(), u.getValue().strip());
+                        }
+                    }
+                }
                 collect(child(unit, "states"), states);
                 collect(child(unit, "components"), components);
             }

@@ -161,7 +161,8 @@ public final class EngineAlarmBoard implements AlarmBoard {
             case LOW -> AlarmView.Priority.LOW;
         };
         Optional<String> sensor = r.suspect().map(s -> s.sensorId());
-        if (sensor.isEmpty() && (r.kind() == AlarmKind.STALE_SENSOR || r.kind() == AlarmKind.OUT_OF_RANGE)) {
+        if (sensor.isEmpty() && (r.kind() == AlarmKind.STALE_SENSOR || r.kind() == AlarmKind.OUT_OF_RANGE
+                || r.kind() == AlarmKind.FROZEN_SENSOR || r.kind() == AlarmKind.ERRATIC_SENSOR)) {
             sensor = Optional.of(r.id().substring(r.kind().idPrefix().length()));
         }
         OptionalDouble bias = r.suspect().map(s -> OptionalDouble.of(s.biasSi())).orElse(OptionalDouble.empty());

@@ -30,6 +30,8 @@ import org.steamtally.calc.cycle.Snapshot;
 import org.steamtally.calc.cycle.UnitResult;
 import org.steamtally.calc.plant.UnitDescription;
 import org.steamtally.calc.reconcile.ReconcilingEvaluator;
+import org.steamtally.calc.signal.SignalCheck;
+import org.steamtally.calc.signal.SignalReport;
 import org.steamtally.dashboard.push.InMemoryLiveResults;
 import org.steamtally.deploy.config.WindowChannelSettings;
 import org.steamtally.dashboard.store.ResultStore;
@@ -70,6 +72,8 @@ public final class UnitMonitor implements AutoCloseable {
     private final AlarmEngine engine;
     /** Null when the window channel is off. */
     private final WindowChannel window;
+    /** Each sensor's own signal (frozen value, excess scatter), tested before the balances see it. */
+    private final SignalCheck signals;
     private final SnapshotSource source;
     private final ResultStore store;
     private final InMemoryLiveResults live;
@@ -116,6 +120,7 @@ public final class UnitMonitor implements AutoCloseable {
             LOG.warn("unit {}: window length {} is not a whole number of snapshot periods of {}; using {} snapshots ({} s)",
                     unit.id(), window.length(), snapshotPeriod, this.window.length(), this.window.lengthS());
         }
+        this.signals = AlarmEngine.signalCheck(unit, settings, settings.signal().forUnit(unit));
         this.source = source;
         this.store = store;
         this.live = live;
@@ -321,9 +326,19 @@ public final class UnitMonitor implements AutoCloseable {
         long t0 = System.nanoTime();
         UnitResult result;
         List<AlarmEvent> events;
+        // A sensor failing its signal test is left out of the balances, in both channels, as a stale one is.
+        Snapshot checked;
         try {
-            result = evaluator.evaluate(snapshot);
+            SignalReport signal = signals.check(snapshot);
+            List<AlarmEvent> signalEvents = engine.evaluateSignals(signal);
+            checked = signal.excludingFailed(snapshot);
+            result = evaluator.evaluate(checked);
             events = engine.evaluate(snapshot, result, ReconciliationInput.from(result.reconciliation()));
+            if (!signalEvents.isEmpty()) {
+                List<AlarmEvent> all = new ArrayList<>(signalEvents);
+                all.addAll(events);
+                events = all;
+            }
         } catch (RuntimeException e) {
             LOG.error("unit {}: snapshot at {} could not be evaluated: {}", unit.id(), snapshot.timestamp(),
                     e.toString());
@@ -335,7 +350,7 @@ public final class UnitMonitor implements AutoCloseable {
         if (window != null) {
             long t1 = System.nanoTime();
             try {
-                WindowChannel.Outcome w = window.evaluate(snapshot);
+                WindowChannel.Outcome w = window.evaluate(checked);
                 result = result.withWindowReconciliation(w.summary());
                 windowEvents = w.events();
             } catch (RuntimeException e) {

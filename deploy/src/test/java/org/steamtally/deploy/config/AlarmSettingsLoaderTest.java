@@ -78,7 +78,7 @@ class AlarmSettingsLoaderTest {
         assertEquals(Duration.ofMinutes(2),
                 s.definitionOf(AlarmKind.GLOBAL_TEST, AlarmKind.GLOBAL_TEST_ID).offDelay());
         assertEquals(3.0, s.definitionOf(AlarmKind.SUSPECT_SENSOR, "suspect:FT-1").limit());
-        assertEquals(6, s.overrides().size());
+        assertEquals(7, s.overrides().size());
     }
 
     @Test
@@ -96,6 +96,65 @@ class AlarmSettingsLoaderTest {
                 + " must be below the limit 3.0") + 1;
         assertTrue(e.getMessage().contains(file + ":" + closureLine + ":12: alarms.closure: deadband 3.5 must be below"
                 + " the limit 3.0, else the alarm could never clear"), e.getMessage());
+    }
+
+    @Test
+    void signalAlarmsAreReadWithTheirLimitsAndPerSensorOverrides() throws Exception {
+        AlarmSettings s = AlarmSettingsLoader.load(resource("alarms-full.yaml"));
+        assertEquals(AlarmSettings.FROZEN_DEFAULT.withLimit(120.0).withDelays(Duration.ZERO, Duration.ofSeconds(20)),
+                s.definition(AlarmKind.FROZEN_SENSOR));
+        assertEquals(AlarmSettings.ERRATIC_DEFAULT.withLimit(1.2).withPriority(AlarmPriority.MEDIUM),
+                s.definition(AlarmKind.ERRATIC_SENSOR));
+        assertEquals(900.0, s.definitionOf(AlarmKind.FROZEN_SENSOR, "frozen:FT-1").limit());
+        assertEquals(120.0, s.definitionOf(AlarmKind.FROZEN_SENSOR, "frozen:JT-1").limit());
+    }
+
+    @Test
+    void signalCheckSettingsAreReadWithNoiseAndResolutionInTheSensorsOwnUnit() throws Exception {
+        AlarmSettings s = AlarmSettingsLoader.load(resource("alarms-full.yaml"));
+        assertEquals(120, s.signal().windowReadings());
+        assertEquals(600, s.signal().warmUpReadings());
+        assertEquals(7200, s.signal().learningReadings());
+        // PT-2 is declared in kPa: 0.02 kPa = 20 Pa, 0.001 kPa = 1 Pa; TT-1 in Cel: a difference, 0.05 K
+        assertEquals(20.0, s.signal().declaredNoiseSi().get("PT-2"), 1e-12);
+        assertEquals(1.0, s.signal().resolutionSi().get("PT-2"), 1e-12);
+        assertEquals(0.05, s.signal().declaredNoiseSi().get("TT-1"), 1e-12);
+        assertEquals(java.util.Map.of("PT-2", 1.0), s.signal().resolutionSi());
+    }
+
+    @Test
+    void badSignalCheckSettingsNameTheValue() throws Exception {
+        String base = Files.readString(resource("alarms-full.yaml"));
+        PlantDescriptionException e = assertThrows(PlantDescriptionException.class, () -> AlarmSettingsLoader.parse(
+                "x.yaml", base.replace("{id: PT-2, noise: 0.02,", "{id: PT-2, noise: -0.02,")));
+        assertTrue(e.getMessage().contains("noise of PT-2 in alarms.signal_check must be positive"), e.getMessage());
+        assertTrue(e.getMessage().contains("was -0.02"), e.getMessage());
+        e = assertThrows(PlantDescriptionException.class, () -> AlarmSettingsLoader.parse("x.yaml",
+                base.replace("{id: TT-1, noise: 0.05}", "{id: TT-99, noise: 0.05}")));
+        assertTrue(e.getMessage().contains("alarms.signal_check.sensors: no sensor \"TT-99\" is declared"), e.getMessage());
+        e = assertThrows(PlantDescriptionException.class, () -> AlarmSettingsLoader.parse("x.yaml",
+                base.replace("window: 120", "window: 2")));
+        assertTrue(e.getMessage().contains("the scatter window must hold 3 to 100000 readings, was 2"), e.getMessage());
+        e = assertThrows(PlantDescriptionException.class, () -> AlarmSettingsLoader.parse("x.yaml",
+                base.replace("warm_up: 600", "warm_up: 10min")));
+        assertTrue(e.getMessage().contains("warm_up of alarms.signal_check must be a whole number of readings"),
+                e.getMessage());
+        assertTrue(e.getMessage().contains("10min"), e.getMessage());
+    }
+
+    @Test
+    void badSignalAlarmSettingsNameTheValueAndTheSensor() throws Exception {
+        String base = Files.readString(resource("valid-minimal.yaml"));
+        PlantDescriptionException e = assertThrows(PlantDescriptionException.class,
+                () -> AlarmSettingsLoader.parse("x.yaml", base + "alarms:\n  frozen_sensor: {limit: -5}\n"));
+        assertTrue(e.getMessage().contains("limit of alarms.frozen_sensor must be positive, was -5.0"), e.getMessage());
+        e = assertThrows(PlantDescriptionException.class,
+                () -> AlarmSettingsLoader.parse("x.yaml", base + "alarms:\n  erratic_sensor: {limit: often}\n"));
+        assertTrue(e.getMessage().contains("limit of alarms.erratic_sensor must be a number"), e.getMessage());
+        assertTrue(e.getMessage().contains("often"), e.getMessage());
+        e = assertThrows(PlantDescriptionException.class, () -> AlarmSettingsLoader.parse("x.yaml",
+                base + "alarms:\n  overrides:\n    - {id: \"erratic:PT-99\", limit: 2}\n"));
+        assertTrue(e.getMessage().contains("alarm id \"erratic:PT-99\": no sensor \"PT-99\" is declared"), e.getMessage());
     }
 
     @Test
@@ -140,6 +199,8 @@ class AlarmSettingsLoaderTest {
         "override id of no kind|- {id: \"closure:cycle\", limit: 4}|- {id: \"cycle\", limit: 4}",
         "unknown key in the window subsection|    length: 40s|    lenght: 40s",
         "per-snapshot kind in the window subsection|    length: 40s|    stale_sensor: {on_delay: 1s}",
+        "signal-check window as a duration|window: 120|window: 2min",
+        "signal-check sensor without id|- {id: TT-1, noise: 0.05}|- {noise: 0.05}",
     })
     void malformedSectionIsRejectedByTheSchema(String testCase) throws Exception {
         String[] parts = testCase.split("\\|");
@@ -157,7 +218,9 @@ class AlarmSettingsLoaderTest {
                 AlarmKind.SUSPECT_SENSOR, "high 10s 60s 1.96 0.25",
                 AlarmKind.STALE_SENSOR, "low 5s 5s 0.0 0.0",
                 AlarmKind.OUT_OF_RANGE, "medium 5s 10s 0.0 0.02",
-                AlarmKind.CALCULATION_INVALID, "low 10s 10s 0.0 0.0");
+                AlarmKind.CALCULATION_INVALID, "low 10s 10s 0.0 0.0",
+                AlarmKind.FROZEN_SENSOR, "medium 0s 10s 60.0 0.0",
+                AlarmKind.ERRATIC_SENSOR, "low 5s 30s 1.0 0.1");
         documented.forEach((kind, row) -> {
             AlarmDefinition d = AlarmSettings.DEFAULTS.definition(kind);
             assertEquals(row, d.priority().key() + " " + d.onDelay().toSeconds() + "s " + d.offDelay().toSeconds() + "s "

@@ -173,4 +173,26 @@ class UnitMonitorTest {
         assertEquals(Optional.of("shift-a"), last.user());
         rig.monitor().close();
     }
+
+    @Test
+    void aFrozenSensorRaisesItsAlarmAndIsLeftOutOfTheReconciliation() throws Exception {
+        PlantDescription plant = DaemonConfigFiles.parse("regenerative.yaml", Demo.exampleText()).plant();
+        UnitDescription unit = plant.units().get(0);
+        StepClock clock = new StepClock();
+        // frozen from the start: the default limit of 60 s unchanged raises the alarm at the 61st snapshot
+        Simulator sim = Simulator.builder(TruthModel.of(unit, ExampleDesignPoints.regenerative())).seed(13)
+                .fault(new Fault.Stuck(SENSOR, T0, Duration.ofHours(1), java.util.OptionalDouble.empty())).build();
+        Rig rig = rig(plant, clock);
+        rig.monitor().start();
+        run(rig, sim, clock, T0, 62);
+        AlarmRecord frozen = rig.monitor().alarms().stream().filter(a -> a.id().equals("frozen:" + SENSOR)).findFirst()
+                .orElseThrow();
+        assertEquals(AlarmState.ACTIVE_UNACKNOWLEDGED, frozen.state(), frozen.text());
+        var last = rig.store().reconciliations.get(rig.store().reconciliations.size() - 1);
+        assertTrue(last.sensors().stream().noneMatch(s -> s.id().equals(SENSOR)),
+                "a frozen sensor is left out of the reconciliation as a stale one is: " + last.sensors());
+        var earlier = rig.store().reconciliations.get(10);
+        assertTrue(earlier.sensors().stream().anyMatch(s -> s.id().equals(SENSOR)), "before the limit it was in");
+        rig.monitor().close();
+    }
 }
