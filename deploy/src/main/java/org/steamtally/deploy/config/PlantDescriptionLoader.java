@@ -253,6 +253,8 @@ public final class PlantDescriptionLoader {
                 return null;
             }
             Map<String, Node> entries = new LinkedHashMap<>();
+            // Sections read by other loaders count too: a second "alarms:" would otherwise hide the first.
+            Set<String> seen = new HashSet<>();
             for (NodeTuple tuple : map.getValue()) {
                 Node keyNode = tuple.getKeyNode();
                 if (!(keyNode instanceof ScalarNode scalar)) {
@@ -260,7 +262,7 @@ public final class PlantDescriptionLoader {
                     continue;
                 }
                 String key = scalar.getValue();
-                if (entries.containsKey(key)) {
+                if (!seen.add(key)) {
                     problem(keyNode, "key \"" + key + "\" appears twice in " + what);
                     continue;
                 }
