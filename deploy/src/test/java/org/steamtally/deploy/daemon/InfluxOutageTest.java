@@ -55,7 +55,7 @@ import org.steamtally.dashboard.store.StoredReconciliation;
  *
  * <p>Why two minutes in CI: long enough that the writer's retry wait, which doubles from 0.5 s, reaches
  * its 30 s ceiling (so the test covers the slowest path back) and that the journal holds about 14,000
- * points; short enough that this test, the slowest of the build, adds about three minutes to
+ * points; short enough that this test, the slowest of the build, adds about two and a half minutes to
  * {@code .ci/run} on the shared two-core machine. Longer outages only make the journal longer; run
  * them by hand, e.g. {@code -D}{@value #OUTAGE_PROPERTY}{@code =PT10M}.
  */
