@@ -6,6 +6,10 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import io.micrometer.core.instrument.Counter;
 import io.micrometer.core.instrument.MeterRegistry;
+import java.net.URI;
+import java.net.http.HttpClient;
+import java.net.http.HttpRequest;
+import java.net.http.HttpResponse;
 import java.nio.file.Path;
 import java.time.Clock;
 import java.time.Duration;
@@ -48,9 +52,10 @@ import org.steamtally.dashboard.store.Point;
  *     since a broker that restarted empty drops whatever arrives for a subscription it has not yet
  *     been given (with persistence the restored session would hold it);</li>
  * <li>asserts that every reading published, including those taken while the broker was down, is
- *     received and counted exactly once, as accepted into a snapshot or as superseded (it came after
- *     its snapshot was emitted): nothing lost, nothing refused for any other reason; and that the
- *     results in the store have no gap longer than the restart window plus two snapshot periods.</li>
+ *     received and counted exactly once, as accepted into a snapshot (the daemon's counter and
+ *     {@code /metrics} agree) or as superseded (it came after its snapshot was emitted): nothing
+ *     lost, nothing refused for any other reason; and that the results in the store have no gap
+ *     longer than the restart window plus two snapshot periods.</li>
  * </ul>
  * About 50 s of real time.
  */
@@ -139,6 +144,7 @@ class BrokerRestartTest {
                 }
             }
             double accepted = count(registry, "steamtally.readings.accepted", null);
+            double acceptedOnMetrics = fromMetricsPage(daemon.httpPort(), "steamtally_readings_accepted_total");
             double superseded = count(registry, "steamtally.readings.rejected", "superseded");
             double duplicate = count(registry, "steamtally.readings.rejected", "duplicate");
             double otherRejected = count(registry, "steamtally.readings.rejected", null) - superseded - duplicate;
@@ -155,6 +161,7 @@ class BrokerRestartTest {
                     () -> assertEquals(0, publisher.failed(), "publications failed"),
                     () -> assertEquals(published, accepted + superseded, 0.0,
                             "every reading received once: accepted or superseded, none lost"),
+                    () -> assertEquals(accepted, acceptedOnMetrics, 0.0, "/metrics says the same"),
                     () -> assertEquals(0.0, duplicate, "no reading delivered twice"),
                     () -> assertEquals(0.0, otherRejected, "no reading refused for another reason"),
                     () -> assertTrue(maxGapFinal <= windowMs + 2 * STEP.toMillis(), "largest gap " + maxGapFinal
@@ -200,6 +207,21 @@ class BrokerRestartTest {
         return registry.find(name).counters().stream()
                 .filter(c -> reason == null || reason.equals(c.getId().getTag("reason")))
                 .mapToDouble(Counter::count).sum();
+    }
+
+    /** The sum of one counter's series on the dashboard's {@code /metrics} page (Prometheus text format). */
+    private static double fromMetricsPage(int port, String name) throws Exception {
+        HttpResponse<String> r = HttpClient.newHttpClient().send(HttpRequest.newBuilder(
+                URI.create("http://127.0.0.1:" + port + "/metrics")).timeout(Duration.ofSeconds(10)).GET().build(),
+                HttpResponse.BodyHandlers.ofString());
+        assertEquals(200, r.statusCode(), "/metrics");
+        double sum = 0;
+        for (String line : r.body().split("\n")) {
+            if (line.startsWith(name + "{") || line.startsWith(name + " ")) {
+                sum += Double.parseDouble(line.substring(line.lastIndexOf(' ') + 1));
+            }
+        }
+        return sum;
     }
 
     private static double gauge(MeterRegistry registry, String name) {
