@@ -10,6 +10,10 @@ import java.time.Duration;
 import java.util.Optional;
 import java.util.concurrent.TimeUnit;
 import java.util.function.BooleanSupplier;
+import org.eclipse.paho.mqttv5.client.MqttClient;
+import org.eclipse.paho.mqttv5.client.MqttConnectionOptions;
+import org.eclipse.paho.mqttv5.client.persist.MemoryPersistence;
+import org.eclipse.paho.mqttv5.common.MqttException;
 import org.junit.jupiter.api.Assumptions;
 
 /**
@@ -72,6 +76,27 @@ final class ExternalServices {
                 throw new AssertionError("not within " + within.toSeconds() + " s: " + what);
             }
             Thread.sleep(50);
+        }
+    }
+
+    /**
+     * Ends the broker's persistent sessions of these client ids (a connect with clean start and no
+     * session expiry), so that a broker which keeps sessions over restarts does not go on queuing
+     * readings for clients of finished tests. Best effort: a failure is only reported.
+     */
+    static void endSessions(String url, String... clientIds) {
+        for (String id : clientIds) {
+            try {
+                MqttClient client = new MqttClient(url, id, new MemoryPersistence());
+                MqttConnectionOptions options = new MqttConnectionOptions();
+                options.setCleanStart(true);
+                options.setSessionExpiryInterval(0L);
+                client.connect(options);
+                client.disconnect();
+                client.close();
+            } catch (MqttException e) {
+                System.err.println("could not end the MQTT session of " + id + ": " + e);
+            }
         }
     }
 }
