@@ -16,12 +16,12 @@ final class Mqtt3Publisher extends WindowedPublisher {
     private final IMqttActionListener release = new IMqttActionListener() {
         @Override
         public void onSuccess(IMqttToken token) {
-            done(true);
+            ((Outcome) token.getUserContext()).succeeded();
         }
 
         @Override
         public void onFailure(IMqttToken token, Throwable exception) {
-            done(false);
+            ((Outcome) token.getUserContext()).failed();
         }
     };
 
@@ -52,7 +52,7 @@ final class Mqtt3Publisher extends WindowedPublisher {
     protected void send(String topic, byte[] payload, int qos) throws MqttException {
         MqttMessage message = new MqttMessage(payload);
         message.setQos(qos);
-        client.publish(topic, message, null, release);
+        client.publish(topic, message, outcome(), release);
     }
 
     @Override

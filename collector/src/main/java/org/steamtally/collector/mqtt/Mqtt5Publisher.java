@@ -17,12 +17,12 @@ final class Mqtt5Publisher extends WindowedPublisher {
     private final MqttActionListener release = new MqttActionListener() {
         @Override
         public void onSuccess(IMqttToken token) {
-            done(true);
+            ((Outcome) token.getUserContext()).succeeded();
         }
 
         @Override
         public void onFailure(IMqttToken token, Throwable exception) {
-            done(false);
+            ((Outcome) token.getUserContext()).failed();
         }
     };
 
@@ -58,7 +58,7 @@ final class Mqtt5Publisher extends WindowedPublisher {
     protected void send(String topic, byte[] payload, int qos) throws MqttException {
         MqttMessage message = new MqttMessage(payload);
         message.setQos(qos);
-        client.publish(topic, message, null, release);
+        client.publish(topic, message, outcome(), release);
     }
 
     @Override

@@ -2,6 +2,7 @@ package org.steamtally.collector.mqtt;
 
 import java.time.Duration;
 import java.util.ArrayDeque;
+import java.util.concurrent.atomic.AtomicInteger;
 import java.util.concurrent.atomic.AtomicLong;
 
 /**
@@ -41,6 +42,39 @@ abstract class WindowedPublisher implements ReadingPublisher {
     protected final void done(boolean success) {
         (success ? completed : failed).incrementAndGet();
         window.release();
+    }
+
+    /** A new {@link Outcome} for one publication, to pass to the client as the token's user context. */
+    protected final Outcome outcome() {
+        return new Outcome();
+    }
+
+    /**
+     * What became of one publication, reported once. With a persistent session Paho fails the token
+     * of a QoS 1 publication in flight when the connection is lost, then sends the publication again
+     * after the reconnect and reports the same token's success: counted once, as completed, and its
+     * window slot released once (at the failure, so that the window cannot stall on a lost connection).
+     */
+    protected final class Outcome {
+        private static final int PENDING = 0;
+        private static final int SUCCEEDED = 1;
+        private static final int FAILED = 2;
+        private final AtomicInteger state = new AtomicInteger(PENDING);
+
+        public void succeeded() {
+            if (state.compareAndSet(PENDING, SUCCEEDED)) {
+                done(true);
+            } else if (state.compareAndSet(FAILED, SUCCEEDED)) {
+                failed.decrementAndGet();
+                completed.incrementAndGet();
+            }
+        }
+
+        public void failed() {
+            if (state.compareAndSet(PENDING, FAILED)) {
+                done(false);
+            }
+        }
     }
 
     @Override
