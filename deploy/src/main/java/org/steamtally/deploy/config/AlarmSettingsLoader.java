@@ -266,7 +266,7 @@ public final class AlarmSettingsLoader {
                     default -> {
                         AlarmKind kind = kindOfKey(key);
                         if (!WindowChannelSettings.KINDS.contains(kind)) {
-                            Node keyNode = keyNodeOf(node, key);
+                            Node keyNode = YamlNodes.keyNode(node, key);
                             problem(keyNode == null ? value : keyNode, "alarms.window: " + key
                                     + " alarms are not raised on window means (the per-snapshot channel raises"
                                     + " them); allowed here: " + String.join(", ", shown));
@@ -295,17 +295,6 @@ public final class AlarmSettingsLoader {
                 }
             }
             throw new IllegalStateException(key);
-        }
-
-        private static Node keyNodeOf(Node mapping, String key) {
-            if (mapping instanceof MappingNode map) {
-                for (NodeTuple t : map.getValue()) {
-                    if (t.getKeyNode() instanceof ScalarNode k && k.getValue().equals(key)) {
-                        return t.getKeyNode();
-                    }
-                }
-            }
-            return null;
         }
 
         /** The signal check's settings; the defaults, with problems, where they cannot be used. */

@@ -97,10 +97,21 @@ final class YamlNodes {
 
     /** The value under a plain key of a mapping; null when the node is no mapping or has no such key. */
     static Node child(Node node, String key) {
+        NodeTuple tuple = entry(node, key);
+        return tuple == null ? null : tuple.getValueNode();
+    }
+
+    /** The key node itself, where a problem with the key (not its value) is to be reported; null as for {@link #child}. */
+    static Node keyNode(Node node, String key) {
+        NodeTuple tuple = entry(node, key);
+        return tuple == null ? null : tuple.getKeyNode();
+    }
+
+    private static NodeTuple entry(Node node, String key) {
         if (node instanceof MappingNode map) {
             for (NodeTuple tuple : map.getValue()) {
                 if (tuple.getKeyNode() instanceof ScalarNode k && k.getValue().equals(key)) {
-                    return tuple.getValueNode();
+                    return tuple;
                 }
             }
         }

@@ -147,16 +147,9 @@ class BrokerRestartTest {
 
             List<Point> results = daemon.store().points(Measurement.CYCLE, site, unit.id(), start, end.plusSeconds(5));
             List<Long> ts = new ArrayList<>(results.stream().map(Point::timestampMs).sorted().toList());
-            long maxGap = 0;
-            long maxGapOutside = 0;
-            for (int i = 1; i < ts.size(); i++) {
-                long gap = ts.get(i) - ts.get(i - 1);
-                maxGap = Math.max(maxGap, gap);
-                boolean overlapsWindow = ts.get(i) >= down.toEpochMilli() && ts.get(i - 1) <= up.toEpochMilli();
-                if (!overlapsWindow) {
-                    maxGapOutside = Math.max(maxGapOutside, gap);
-                }
-            }
+            Gaps gaps = Gaps.of(ts, down, up);
+            long maxGap = gaps.largestMs();
+            long maxGapOutside = gaps.largestAwayFromRestartMs();
             double accepted = count(registry, "steamtally.readings.accepted", null);
             double acceptedOnMetrics = fromMetricsPage(daemon.httpPort(), "steamtally_readings_accepted_total");
             double superseded = count(registry, "steamtally.readings.rejected", "superseded");
@@ -292,16 +285,9 @@ class BrokerRestartTest {
 
             List<Point> results = daemon.store().points(Measurement.CYCLE, site, unit.id(), start, end.plusSeconds(5));
             List<Long> ts = new ArrayList<>(results.stream().map(Point::timestampMs).sorted().toList());
-            long maxGap = 0;
-            long maxGapOutside = 0;
-            for (int i = 1; i < ts.size(); i++) {
-                long gap = ts.get(i) - ts.get(i - 1);
-                maxGap = Math.max(maxGap, gap);
-                boolean overlapsWindow = ts.get(i) >= down.toEpochMilli() && ts.get(i - 1) <= up.toEpochMilli();
-                if (!overlapsWindow) {
-                    maxGapOutside = Math.max(maxGapOutside, gap);
-                }
-            }
+            Gaps gaps = Gaps.of(ts, down, up);
+            long maxGap = gaps.largestMs();
+            long maxGapOutside = gaps.largestAwayFromRestartMs();
             long distinctResults = ts.stream().distinct().count();
             long lostAtWitness = sent.keySet().stream().filter(k -> !witnessed.containsKey(k)).count();
             long repeatsAtWitness = sent.keySet().stream().mapToLong(k -> witnessed.getOrDefault(k, 1) - 1L).sum();
@@ -506,5 +492,23 @@ class BrokerRestartTest {
     private static double gauge(MeterRegistry registry, String name) {
         var g = registry.find(name).gauge();
         return g == null ? Double.NaN : g.value();
+    }
+
+    /** The largest gaps between successive result timestamps: overall, and between results both away from the restart. */
+    private record Gaps(long largestMs, long largestAwayFromRestartMs) {
+        static Gaps of(List<Long> sortedTimestampsMs, Instant down, Instant up) {
+            long largest = 0;
+            long away = 0;
+            for (int i = 1; i < sortedTimestampsMs.size(); i++) {
+                long before = sortedTimestampsMs.get(i - 1);
+                long after = sortedTimestampsMs.get(i);
+                long gap = after - before;
+                largest = Math.max(largest, gap);
+                if (!(after >= down.toEpochMilli() && before <= up.toEpochMilli())) {
+                    away = Math.max(away, gap);
+                }
+            }
+            return new Gaps(largest, away);
+        }
     }
 }
