@@ -25,7 +25,7 @@ import org.steamtally.calc.plant.UnitDescription;
  * <ul>
  *   <li>{@code reconcileNoisy}: every sensor off its consistent value by seeded noise within its
  *       uncertainty; the global test passes: one solve.</li>
- *   <li>{@code reconcileWithGrossError}: the same with a 5σ bias on TT-311; the global test fails,
+ *   <li>{@code reconcileWithGrossError}: the same with an 8σ bias on TT-311; the global test fails,
  *       so serial elimination solves a second time.</li>
  *   <li>{@code fullRecord}: what {@code replay} does per snapshot: cycle model on the raw values,
  *       reconciliation, cycle model on the reconciled values.</li>
