@@ -545,7 +545,7 @@ public final class FleetLoadDriver {
         }
         String url = "jdbc:h2:file:" + work.resolve("data").resolve("store").resolve("steamtally").toAbsolutePath();
         long[] n = new long[units];
-        try (java.sql.Connection c = java.sql.DriverManager.getConnection(url);
+        try (java.sql.Connection c = java.sql.DriverManager.getConnection(url, "sa", "");
              java.sql.PreparedStatement st = c.prepareStatement("SELECT \"unit\", COUNT(DISTINCT \"ts\") FROM \""
                      + Measurement.STATES.measurementName() + "\" WHERE \"site\" = ? AND \"ts\" >= ? AND \"ts\" < ?"
                      + " GROUP BY \"unit\"")) {
