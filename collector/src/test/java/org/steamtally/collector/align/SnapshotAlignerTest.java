@@ -143,15 +143,18 @@ class SnapshotAlignerTest {
         long seed = 4242L;
         List<long[]> readings = new ArrayList<>();
         Random random = new Random(seed);
+        // Each sensor once per period, as a snapshot released when complete assumes: the pressure
+        // 137 ms and the temperature 611 ms into each second.
         for (int i = 0; i < 200; i++) {
-            readings.add(new long[] {i % 2, T0 + 137L * i, 16_000_000L + random.nextInt(1000)});
+            readings.add(new long[] {i % 2, T0 + 1_000L * (i / 2) + (i % 2 == 0 ? 137 : 611),
+                    16_000_000L + random.nextInt(1000)});
         }
         List<Snapshot> ordered = replay(readings, 3_000);
         List<long[]> shuffled = new ArrayList<>(readings);
-        // Displace each reading by less than the lateness: swap within blocks of ten (1.37 s). The
+        // Displace each reading by less than the lateness: swap within blocks of four (2 s). The
         // first reading stays first, since it fixes the grid's start.
-        for (int b = 0; b + 10 <= shuffled.size(); b += 10) {
-            Collections.shuffle(shuffled.subList(Math.max(b, 1), b + 10), random);
+        for (int b = 0; b + 4 <= shuffled.size(); b += 4) {
+            Collections.shuffle(shuffled.subList(Math.max(b, 1), b + 4), random);
         }
         List<Snapshot> disordered = replay(shuffled, 3_000);
         assertEquals(ordered.size(), disordered.size(), "seed " + seed);
@@ -253,6 +256,132 @@ class SnapshotAlignerTest {
                         () -> new SnapshotAligner(UNIT, Duration.ofNanos(1_500_000), Duration.ZERO)),
                 () -> assertThrows(IllegalArgumentException.class,
                         () -> new SnapshotAligner(UNIT, Duration.ofSeconds(1), Duration.ofSeconds(-1))));
+    }
+
+    // ---- release of a complete snapshot before the allowed lateness
+
+    private static List<Instant> times(List<Snapshot> snapshots) {
+        return snapshots.stream().map(Snapshot::timestamp).toList();
+    }
+
+    @Test
+    void snapshotIsReleasedAsSoonAsEverySensorHasAReadingForItsPeriod() {
+        SnapshotAligner a = aligner(500);
+        a.advanceTo(T0 + 1_005);
+        a.offer(PRESSURE, T0 + 1_000, 16e6);
+        assertEquals(List.of(), a.advanceTo(T0 + 1_006), "the temperature is still awaited");
+        a.offer(TEMPERATURE, T0 + 1_000, 800.0);
+        List<Snapshot> out = a.advanceTo(T0 + 1_007);
+        assertAll(
+                () -> assertEquals(List.of(Instant.ofEpochMilli(T0 + 1_000)), times(out),
+                        "released 7 ms after its time, not after the 500 ms lateness"),
+                () -> assertEquals(SensorStatus.GOOD, out.get(0).status()[TEMPERATURE]),
+                () -> assertEquals(800.0, out.get(0).valuesSi()[TEMPERATURE]));
+    }
+
+    @Test
+    void completeSnapshotWaitsForItsOwnTime() {
+        SnapshotAligner a = aligner(500);
+        a.advanceTo(T0 + 1_700);
+        a.offer(PRESSURE, T0 + 1_700, 16e6);
+        a.offer(TEMPERATURE, T0 + 1_700, 800.0);
+        // Both readings are for the snapshot at T0 + 2 s, which the clock has not reached.
+        assertEquals(List.of(), a.advanceTo(T0 + 1_800));
+        assertEquals(List.of(Instant.ofEpochMilli(T0 + 2_000)), times(a.advanceTo(T0 + 2_000)));
+    }
+
+    @Test
+    void incompleteSnapshotIsReleasedAtTheAllowedLateness() {
+        SnapshotAligner a = aligner(500);
+        a.advanceTo(T0 + 1_000);
+        a.offer(PRESSURE, T0 + 1_000, 16e6);
+        a.offer(TEMPERATURE, T0 + 1_000, 800.0);
+        assertEquals(1, a.advanceTo(T0 + 1_001).size());
+        // The next period: only the pressure comes; the temperature (10 s max age) is still expected.
+        assertEquals(List.of(), a.advanceTo(T0 + 2_000));
+        assertEquals(Offer.ACCEPTED, a.offer(PRESSURE, T0 + 2_000, 16.1e6));
+        assertEquals(List.of(), a.advanceTo(T0 + 2_002));
+        assertEquals(List.of(), a.advanceTo(T0 + 2_500), "a snapshot at exactly now − lateness stays open");
+        List<Snapshot> out = a.advanceTo(T0 + 2_501);
+        assertAll(
+                () -> assertEquals(List.of(Instant.ofEpochMilli(T0 + 2_000)), times(out)),
+                () -> assertEquals(16.1e6, out.get(0).valuesSi()[PRESSURE]),
+                () -> assertEquals(SensorStatus.GOOD, out.get(0).status()[TEMPERATURE], "its last reading is 1 s old"));
+    }
+
+    @Test
+    void aSensorThatHasTurnedStaleIsNotAwaited() {
+        SnapshotAligner a = aligner(500);
+        a.advanceTo(T0 + 1_000);
+        a.offer(PRESSURE, T0 + 1_000, 16e6);
+        a.offer(TEMPERATURE, T0 + 1_000, 800.0);
+        a.advanceTo(T0 + 1_001);
+        // The temperature falls silent; with a 10 s max age it is awaited until T0 + 11 s.
+        for (long s = 2; s <= 11; s++) {
+            a.offer(PRESSURE, T0 + 1_000 * s, 16e6);
+            assertEquals(List.of(), a.advanceTo(T0 + 1_000 * s + 1), "awaited at " + s + " s");
+            assertEquals(1, a.advanceTo(T0 + 1_000 * s + 501).size());
+        }
+        a.offer(PRESSURE, T0 + 12_000, 16e6);
+        List<Snapshot> out = a.advanceTo(T0 + 12_001);
+        assertAll(
+                () -> assertEquals(List.of(Instant.ofEpochMilli(T0 + 12_000)), times(out), "released at once"),
+                () -> assertEquals(SensorStatus.STALE, out.get(0).status()[TEMPERATURE]));
+    }
+
+    @Test
+    void aSensorWithNoReadingIsAwaitedForItsMaxAgeFromTheFirstSnapshot() {
+        SnapshotAligner a = aligner(500);
+        a.advanceTo(T0 + 1_000);
+        // Only the pressure ever reports: the grid starts at T0 + 1 s, the temperature (10 s) is
+        // known missing from T0 + 11 s.
+        for (long s = 1; s <= 10; s++) {
+            a.offer(PRESSURE, T0 + 1_000 * s, 16e6);
+            assertEquals(List.of(), a.advanceTo(T0 + 1_000 * s + 1), "awaited at " + s + " s");
+            assertEquals(1, a.advanceTo(T0 + 1_000 * s + 501).size());
+        }
+        a.offer(PRESSURE, T0 + 11_000, 16e6);
+        List<Snapshot> out = a.advanceTo(T0 + 11_001);
+        assertAll(
+                () -> assertEquals(List.of(Instant.ofEpochMilli(T0 + 11_000)), times(out)),
+                () -> assertEquals(SensorStatus.MISSING, out.get(0).status()[TEMPERATURE]));
+    }
+
+    @Test
+    void aReadingAfterEarlyReleaseIsTakenAsBeforeAndTheSnapshotIsNotReleasedAgain() {
+        SnapshotAligner a = aligner(500);
+        a.advanceTo(T0 + 1_000);
+        a.offer(PRESSURE, T0 + 900, 16e6);
+        a.offer(TEMPERATURE, T0 + 900, 800.0);
+        List<Snapshot> first = a.advanceTo(T0 + 1_000);
+        assertEquals(List.of(Instant.ofEpochMilli(T0 + 1_000)), times(first));
+        // A second pressure for the same period, within the lateness: the snapshot is out, so it is
+        // the base of later snapshots, as a reading after the lateness always was.
+        assertAll(
+                () -> assertEquals(Offer.ACCEPTED, a.offer(PRESSURE, T0 + 950, 16.2e6)),
+                () -> assertEquals(Offer.SUPERSEDED, a.offer(PRESSURE, T0 + 920, 16.1e6)),
+                () -> assertEquals(Offer.DUPLICATE, a.offer(TEMPERATURE, T0 + 900, 800.0)));
+        assertEquals(List.of(), a.advanceTo(T0 + 1_501), "not released a second time at the lateness");
+        assertEquals(List.of(), a.drain(), "nor by a drain");
+        List<Snapshot> next = a.advanceTo(T0 + 2_501);
+        assertAll(
+                () -> assertEquals(List.of(Instant.ofEpochMilli(T0 + 2_000)), times(next)),
+                () -> assertEquals(16e6, first.get(0).valuesSi()[PRESSURE], "the released snapshot is unchanged"),
+                () -> assertEquals(16.2e6, next.get(0).valuesSi()[PRESSURE]));
+    }
+
+    @Test
+    void readingsAlreadyInForTheFollowingSnapshotReleaseItOnceItsTimeComes() {
+        SnapshotAligner a = aligner(500);
+        a.advanceTo(T0 + 1_000);
+        a.offer(PRESSURE, T0 + 1_000, 16e6);
+        a.offer(TEMPERATURE, T0 + 1_000, 800.0);
+        a.offer(PRESSURE, T0 + 1_400, 16.1e6);
+        a.offer(TEMPERATURE, T0 + 1_400, 801.0);
+        assertEquals(List.of(Instant.ofEpochMilli(T0 + 1_000)), times(a.advanceTo(T0 + 1_000)));
+        assertEquals(List.of(), a.advanceTo(T0 + 1_999));
+        assertEquals(List.of(Instant.ofEpochMilli(T0 + 2_000)), times(a.advanceTo(T0 + 2_000)),
+                "no new reading needed to find it complete");
     }
 
     private static void assertSameSnapshot(Snapshot expected, Snapshot actual, String where) {
