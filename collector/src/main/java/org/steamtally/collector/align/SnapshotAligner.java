@@ -23,8 +23,9 @@ import org.steamtally.calc.plant.UnitDescription;
  * <p>Time is passed in: the aligner has no clock of its own, so the same calls give the same
  * snapshots. {@link #advanceTo} moves the clock and emits every snapshot whose time is more than
  * {@code allowedLateness} in the past; until then a snapshot is open and a late reading for it is
- * still taken in. A snapshot is emitted sooner, as soon as the clock has reached its time, when it is
- * complete: every sensor that is expected has a reading in its interval (after the previous grid time,
+ * still taken in. With release when complete (live ingestion; a replay of a recording keeps to the
+ * lateness, so that every reading of a period is weighed) a snapshot is emitted sooner, as soon as
+ * the clock has reached its time, when it is complete: every sensor that is expected has a reading in its interval (after the previous grid time,
  * at or before its own). A sensor is expected unless it would be {@link SensorStatus#STALE} in that
  * snapshot (its latest reading is older than its max age) or is known to be missing (no reading yet,
  * though the grid has run for its max age), so one silent sensor makes its unit wait the whole
@@ -56,6 +57,7 @@ public final class SnapshotAligner {
     private final long[] maxAgeMillis;
     private final Sensor[] sensors;
     private final SensorTrack[] tracks;
+    private final boolean releaseWhenComplete;
 
     private boolean clockSet;
     private long clockMillis;
@@ -79,6 +81,20 @@ public final class SnapshotAligner {
      * @param allowedLateness how long a snapshot stays open for late readings, whole milliseconds, ≥ 0
      */
     public SnapshotAligner(UnitDescription unit, Duration period, Duration allowedLateness) {
+        this(unit, period, allowedLateness, false);
+    }
+
+    /**
+     * @param unit                the unit; its sensor list fixes the sensor indexes and snapshot layout
+     * @param period              time between snapshots, whole milliseconds, at least 1 ms
+     * @param allowedLateness     how long a snapshot stays open for late readings, whole milliseconds,
+     *                            ≥ 0; with {@code releaseWhenComplete} the bound for incomplete ones
+     * @param releaseWhenComplete whether a complete snapshot is emitted as soon as the clock reaches
+     *                            its time (see the class description)
+     */
+    public SnapshotAligner(UnitDescription unit, Duration period, Duration allowedLateness,
+            boolean releaseWhenComplete) {
+        this.releaseWhenComplete = releaseWhenComplete;
         this.unit = Objects.requireNonNull(unit, "unit");
         Objects.requireNonNull(period, "period");
         Objects.requireNonNull(allowedLateness, "allowedLateness");
@@ -165,7 +181,11 @@ public final class SnapshotAligner {
             clockSet = true;
         }
         List<Snapshot> due = emitThrough(clockMillis - latenessMillis - 1);
-        if (!completenessToCheck || !started || nextSnapshotMillis > clockMillis) {
+        if (!due.isEmpty()) {
+            // The snapshot now next may have been complete already behind an incomplete one.
+            completenessToCheck = true;
+        }
+        if (!releaseWhenComplete || !completenessToCheck || !started || nextSnapshotMillis > clockMillis) {
             // Nothing new came in, or the next snapshot's time has not come: checked once it has.
             return due;
         }

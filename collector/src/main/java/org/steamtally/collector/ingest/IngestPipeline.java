@@ -146,7 +146,7 @@ public final class IngestPipeline implements AutoCloseable {
         int total = 0;
         for (int u = 0; u < units.size(); u++) {
             UnitDescription unit = units.get(u);
-            aligners[u] = new SnapshotAligner(unit, settings.snapshotPeriod(), settings.allowedLateness());
+            aligners[u] = new SnapshotAligner(unit, settings.snapshotPeriod(), settings.allowedLateness(), true);
             slots[u] = new SnapshotSlot(unit.id(), Counter.builder("steamtally.snapshots.coalesced")
                     .description("snapshots replaced by a newer one before the calc took them")
                     .tag("unit", unit.id()).register(registry));

@@ -143,18 +143,15 @@ class SnapshotAlignerTest {
         long seed = 4242L;
         List<long[]> readings = new ArrayList<>();
         Random random = new Random(seed);
-        // Each sensor once per period, as a snapshot released when complete assumes: the pressure
-        // 137 ms and the temperature 611 ms into each second.
         for (int i = 0; i < 200; i++) {
-            readings.add(new long[] {i % 2, T0 + 1_000L * (i / 2) + (i % 2 == 0 ? 137 : 611),
-                    16_000_000L + random.nextInt(1000)});
+            readings.add(new long[] {i % 2, T0 + 137L * i, 16_000_000L + random.nextInt(1000)});
         }
         List<Snapshot> ordered = replay(readings, 3_000);
         List<long[]> shuffled = new ArrayList<>(readings);
-        // Displace each reading by less than the lateness: swap within blocks of four (2 s). The
+        // Displace each reading by less than the lateness: swap within blocks of ten (1.37 s). The
         // first reading stays first, since it fixes the grid's start.
-        for (int b = 0; b + 4 <= shuffled.size(); b += 4) {
-            Collections.shuffle(shuffled.subList(Math.max(b, 1), b + 4), random);
+        for (int b = 0; b + 10 <= shuffled.size(); b += 10) {
+            Collections.shuffle(shuffled.subList(Math.max(b, 1), b + 10), random);
         }
         List<Snapshot> disordered = replay(shuffled, 3_000);
         assertEquals(ordered.size(), disordered.size(), "seed " + seed);
@@ -260,13 +257,28 @@ class SnapshotAlignerTest {
 
     // ---- release of a complete snapshot before the allowed lateness
 
+    /** An aligner that releases complete snapshots at once, as live ingestion uses it. */
+    private static SnapshotAligner releasing(long latenessMillis) {
+        return new SnapshotAligner(UNIT, Duration.ofSeconds(1), Duration.ofMillis(latenessMillis), true);
+    }
+
+    @Test
+    void withoutReleaseWhenCompleteACompleteSnapshotWaitsForTheLatenessAsAReplayWants() {
+        SnapshotAligner a = aligner(500);
+        a.advanceTo(T0 + 1_000);
+        a.offer(PRESSURE, T0 + 1_000, 16e6);
+        a.offer(TEMPERATURE, T0 + 1_000, 800.0);
+        assertEquals(List.of(), a.advanceTo(T0 + 1_500));
+        assertEquals(List.of(Instant.ofEpochMilli(T0 + 1_000)), times(a.advanceTo(T0 + 1_501)));
+    }
+
     private static List<Instant> times(List<Snapshot> snapshots) {
         return snapshots.stream().map(Snapshot::timestamp).toList();
     }
 
     @Test
     void snapshotIsReleasedAsSoonAsEverySensorHasAReadingForItsPeriod() {
-        SnapshotAligner a = aligner(500);
+        SnapshotAligner a = releasing(500);
         a.advanceTo(T0 + 1_005);
         a.offer(PRESSURE, T0 + 1_000, 16e6);
         assertEquals(List.of(), a.advanceTo(T0 + 1_006), "the temperature is still awaited");
@@ -281,7 +293,7 @@ class SnapshotAlignerTest {
 
     @Test
     void completeSnapshotWaitsForItsOwnTime() {
-        SnapshotAligner a = aligner(500);
+        SnapshotAligner a = releasing(500);
         a.advanceTo(T0 + 1_700);
         a.offer(PRESSURE, T0 + 1_700, 16e6);
         a.offer(TEMPERATURE, T0 + 1_700, 800.0);
@@ -292,7 +304,7 @@ class SnapshotAlignerTest {
 
     @Test
     void incompleteSnapshotIsReleasedAtTheAllowedLateness() {
-        SnapshotAligner a = aligner(500);
+        SnapshotAligner a = releasing(500);
         a.advanceTo(T0 + 1_000);
         a.offer(PRESSURE, T0 + 1_000, 16e6);
         a.offer(TEMPERATURE, T0 + 1_000, 800.0);
@@ -311,7 +323,7 @@ class SnapshotAlignerTest {
 
     @Test
     void aSensorThatHasTurnedStaleIsNotAwaited() {
-        SnapshotAligner a = aligner(500);
+        SnapshotAligner a = releasing(500);
         a.advanceTo(T0 + 1_000);
         a.offer(PRESSURE, T0 + 1_000, 16e6);
         a.offer(TEMPERATURE, T0 + 1_000, 800.0);
@@ -331,7 +343,7 @@ class SnapshotAlignerTest {
 
     @Test
     void aSensorWithNoReadingIsAwaitedForItsMaxAgeFromTheFirstSnapshot() {
-        SnapshotAligner a = aligner(500);
+        SnapshotAligner a = releasing(500);
         a.advanceTo(T0 + 1_000);
         // Only the pressure ever reports: the grid starts at T0 + 1 s, the temperature (10 s) is
         // known missing from T0 + 11 s.
@@ -349,7 +361,7 @@ class SnapshotAlignerTest {
 
     @Test
     void aReadingAfterEarlyReleaseIsTakenAsBeforeAndTheSnapshotIsNotReleasedAgain() {
-        SnapshotAligner a = aligner(500);
+        SnapshotAligner a = releasing(500);
         a.advanceTo(T0 + 1_000);
         a.offer(PRESSURE, T0 + 900, 16e6);
         a.offer(TEMPERATURE, T0 + 900, 800.0);
@@ -372,7 +384,7 @@ class SnapshotAlignerTest {
 
     @Test
     void readingsAlreadyInForTheFollowingSnapshotReleaseItOnceItsTimeComes() {
-        SnapshotAligner a = aligner(500);
+        SnapshotAligner a = releasing(500);
         a.advanceTo(T0 + 1_000);
         a.offer(PRESSURE, T0 + 1_000, 16e6);
         a.offer(TEMPERATURE, T0 + 1_000, 800.0);
@@ -382,6 +394,25 @@ class SnapshotAlignerTest {
         assertEquals(List.of(), a.advanceTo(T0 + 1_999));
         assertEquals(List.of(Instant.ofEpochMilli(T0 + 2_000)), times(a.advanceTo(T0 + 2_000)),
                 "no new reading needed to find it complete");
+    }
+
+    @Test
+    void completeSnapshotBehindAnIncompleteOneGoesWithItAtTheLateness() {
+        SnapshotAligner a = releasing(500);
+        a.advanceTo(T0 + 1_000);
+        a.offer(PRESSURE, T0 + 1_000, 16e6);
+        a.offer(TEMPERATURE, T0 + 1_000, 800.0);
+        a.advanceTo(T0 + 1_001);
+        // T0 + 2 s lacks the temperature; T0 + 3 s has both, in before T0 + 2 s is due.
+        a.advanceTo(T0 + 2_000);
+        a.offer(PRESSURE, T0 + 2_000, 16e6);
+        a.advanceTo(T0 + 2_001);
+        a.advanceTo(T0 + 2_400);
+        a.offer(PRESSURE, T0 + 2_400, 16e6);
+        a.offer(TEMPERATURE, T0 + 2_400, 801.0);
+        assertEquals(List.of(), a.advanceTo(T0 + 2_400));
+        assertEquals(List.of(Instant.ofEpochMilli(T0 + 2_000), Instant.ofEpochMilli(T0 + 3_000)),
+                times(a.advanceTo(T0 + 3_000)), "T0 + 2 s at its lateness bound, T0 + 3 s at once behind it");
     }
 
     private static void assertSameSnapshot(Snapshot expected, Snapshot actual, String where) {
