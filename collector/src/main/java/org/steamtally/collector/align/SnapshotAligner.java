@@ -23,7 +23,15 @@ import org.steamtally.calc.plant.UnitDescription;
  * <p>Time is passed in: the aligner has no clock of its own, so the same calls give the same
  * snapshots. {@link #advanceTo} moves the clock and emits every snapshot whose time is more than
  * {@code allowedLateness} in the past; until then a snapshot is open and a late reading for it is
- * still taken in. The grid starts with the first reading taken in: the first snapshot is the first
+ * still taken in. With release when complete (live ingestion; a replay of a recording keeps to the
+ * lateness, so that every reading of a period is weighed) a snapshot is emitted sooner, as soon as
+ * the clock has reached its time, when it is complete: every sensor that is expected has a reading in its interval (after the previous grid time,
+ * at or before its own). A sensor is expected unless it would be {@link SensorStatus#STALE} in that
+ * snapshot (its latest reading is older than its max age) or is known to be missing (no reading yet,
+ * though the grid has run for its max age), so one silent sensor makes its unit wait the whole
+ * lateness only until it turns stale. Waiting for the lateness when every reading is already in
+ * would only delay the result; a reading arriving after its snapshot was emitted is treated as
+ * before, as the base for later snapshots. The grid starts with the first reading taken in: the first snapshot is the first
  * grid time at or after that reading's timestamp, or after the clock less the allowed lateness if
  * the reading is older; readings from before the first snapshot still serve as each sensor's latest
  * value.
@@ -49,6 +57,7 @@ public final class SnapshotAligner {
     private final long[] maxAgeMillis;
     private final Sensor[] sensors;
     private final SensorTrack[] tracks;
+    private final boolean releaseWhenComplete;
 
     private boolean clockSet;
     private long clockMillis;
@@ -56,6 +65,10 @@ public final class SnapshotAligner {
     private boolean started;
     /** The next snapshot to emit; meaningful once {@link #started}. */
     private long nextSnapshotMillis;
+    /** The grid's first snapshot, from when a sensor with no reading counts as known missing. */
+    private long firstSnapshotMillis;
+    /** Whether a reading came into the open window since the next snapshot was last found incomplete. */
+    private boolean completenessToCheck;
 
     /** An aligner with {@link #DEFAULT_PERIOD} and {@link #DEFAULT_ALLOWED_LATENESS}. */
     public SnapshotAligner(UnitDescription unit) {
@@ -68,6 +81,20 @@ public final class SnapshotAligner {
      * @param allowedLateness how long a snapshot stays open for late readings, whole milliseconds, ≥ 0
      */
     public SnapshotAligner(UnitDescription unit, Duration period, Duration allowedLateness) {
+        this(unit, period, allowedLateness, false);
+    }
+
+    /**
+     * @param unit                the unit; its sensor list fixes the sensor indexes and snapshot layout
+     * @param period              time between snapshots, whole milliseconds, at least 1 ms
+     * @param allowedLateness     how long a snapshot stays open for late readings, whole milliseconds,
+     *                            ≥ 0; with {@code releaseWhenComplete} the bound for incomplete ones
+     * @param releaseWhenComplete whether a complete snapshot is emitted as soon as the clock reaches
+     *                            its time (see the class description)
+     */
+    public SnapshotAligner(UnitDescription unit, Duration period, Duration allowedLateness,
+            boolean releaseWhenComplete) {
+        this.releaseWhenComplete = releaseWhenComplete;
         this.unit = Objects.requireNonNull(unit, "unit");
         Objects.requireNonNull(period, "period");
         Objects.requireNonNull(allowedLateness, "allowedLateness");
@@ -127,27 +154,72 @@ public final class SnapshotAligner {
         if (!started) {
             started = true;
             nextSnapshotMillis = slotOf(Math.max(tsMillis, clockMillis - latenessMillis));
+            firstSnapshotMillis = nextSnapshotMillis;
         }
         SensorTrack track = tracks[sensorIndex];
         // Every snapshot such a reading could enter has been emitted; it can only be a later one's base.
         if (tsMillis <= nextSnapshotMillis - periodMillis) {
             return track.offerBase(tsMillis, valueSi);
         }
-        return track.offerPending(slotOf(tsMillis), tsMillis, valueSi);
+        Offer result = track.offerPending(slotOf(tsMillis), tsMillis, valueSi);
+        if (result == Offer.ACCEPTED) {
+            completenessToCheck = true;
+        }
+        return result;
     }
 
     /**
      * Moves the clock to {@code nowMillis} (a clock never runs back: an earlier time is ignored) and
-     * emits, in time order, every snapshot before {@code nowMillis − allowedLateness}. A snapshot at
-     * exactly that time stays open, so that with no lateness a reading stamped with the current
-     * time still enters the current snapshot.
+     * emits, in time order, every snapshot before {@code nowMillis − allowedLateness}, then every
+     * following one at or before {@code nowMillis} that is complete (see the class description). A
+     * snapshot at exactly {@code nowMillis − allowedLateness} stays open, so that with no lateness a
+     * reading stamped with the current time still enters the current snapshot.
      */
     public List<Snapshot> advanceTo(long nowMillis) {
         if (!clockSet || nowMillis > clockMillis) {
             clockMillis = nowMillis;
             clockSet = true;
         }
-        return emitThrough(clockMillis - latenessMillis - 1);
+        List<Snapshot> due = emitThrough(clockMillis - latenessMillis - 1);
+        if (!due.isEmpty()) {
+            // The snapshot now next may have been complete already behind an incomplete one.
+            completenessToCheck = true;
+        }
+        if (!releaseWhenComplete || !completenessToCheck || !started || nextSnapshotMillis > clockMillis) {
+            // Nothing new came in, or the next snapshot's time has not come: checked once it has.
+            return due;
+        }
+        List<Snapshot> out = null;
+        while (nextSnapshotMillis <= clockMillis && isComplete(nextSnapshotMillis)) {
+            if (out == null) {
+                out = new ArrayList<>(due);
+            }
+            out.add(snapshotAt(nextSnapshotMillis));
+            nextSnapshotMillis += periodMillis;
+        }
+        // Readings for the snapshot now next may all be in already; else the next accepted one re-checks.
+        completenessToCheck = nextSnapshotMillis > clockMillis;
+        return out == null ? due : out;
+    }
+
+    /**
+     * Whether every expected sensor has a reading for the snapshot at {@code t}, the next to emit (so
+     * every reading held pending is for {@code t} or later).
+     */
+    private boolean isComplete(long t) {
+        for (int i = 0; i < sensors.length; i++) {
+            SensorTrack track = tracks[i];
+            if (track.size > 0 && track.slots[0] == t) {
+                continue;
+            }
+            boolean expected = track.hasBase
+                    ? t - track.baseMillis <= maxAgeMillis[i]
+                    : t - firstSnapshotMillis < maxAgeMillis[i];
+            if (expected) {
+                return false;
+            }
+        }
+        return true;
     }
 
     /**

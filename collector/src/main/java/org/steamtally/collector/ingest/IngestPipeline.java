@@ -38,7 +38,9 @@ import org.steamtally.collector.units.Units;
  * into a bounded queue; one worker parses ({@link PayloadParser}), maps the topic to sensors
  * ({@link TopicMap}), converts to SI ({@link Units}, gauge pressures with the site's or the
  * barometer's atmospheric pressure), validates, aligns per unit ({@link SnapshotAligner}) and hands
- * the snapshots to one {@link SnapshotSlot} per unit, where the newest wins.
+ * the snapshots to one {@link SnapshotSlot} per unit, where the newest wins. A unit's snapshot is
+ * handed over as soon as the reading that completes it has been taken in, or at the allowed lateness
+ * when it stays incomplete.
  *
  * <p>Every reading is either accepted ({@code steamtally.readings.accepted}, tag {@code sensor}) or
  * counted as rejected ({@code steamtally.readings.rejected}, tags {@code sensor} and {@code reason},
@@ -144,7 +146,7 @@ public final class IngestPipeline implements AutoCloseable {
         int total = 0;
         for (int u = 0; u < units.size(); u++) {
             UnitDescription unit = units.get(u);
-            aligners[u] = new SnapshotAligner(unit, settings.snapshotPeriod(), settings.allowedLateness());
+            aligners[u] = new SnapshotAligner(unit, settings.snapshotPeriod(), settings.allowedLateness(), true);
             slots[u] = new SnapshotSlot(unit.id(), Counter.builder("steamtally.snapshots.coalesced")
                     .description("snapshots replaced by a newer one before the calc took them")
                     .tag("unit", unit.id()).register(registry));
@@ -328,6 +330,14 @@ public final class IngestPipeline implements AutoCloseable {
                     fault(m, t, reason, problem, Double.toString(reading.value())
                             + reading.unit().map(u -> " " + u).orElse("") + " at " + reading.timestamp());
                 }
+            }
+        }
+        // The reading may have completed its unit's snapshot: handed over now, not at the next message.
+        int last = -1;
+        for (TopicMap.Target t : targets) {
+            if (t.unitIndex() != last) {
+                last = t.unitIndex();
+                deliver(last, aligners[last].advanceTo(now));
             }
         }
     }

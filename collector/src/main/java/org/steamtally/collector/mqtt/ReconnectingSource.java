@@ -22,6 +22,8 @@ import org.steamtally.collector.config.CollectorSettings;
 abstract class ReconnectingSource implements MessageSource {
 
     private static final Logger LOG = LoggerFactory.getLogger(ReconnectingSource.class);
+    /** Filters named in the connection line at INFO; the full list goes to DEBUG. */
+    static final int FILTERS_SHOWN = 3;
 
     /** Bounds each connect and subscribe handshake, s. */
     static final int HANDSHAKE_TIMEOUT_S = 10;
@@ -84,8 +86,11 @@ abstract class ReconnectingSource implements MessageSource {
             backoff.reset();
             failures = 0;
             watch.set(ConnectionState.CONNECTED, Optional.empty());
+            List<String> subscribed = subscribedFilters();
+            // One topic per sensor makes thousands of filters for a fleet: a count and a few at INFO.
             LOG.info("connected to {} as {} and subscribed to {}", describeServer(), settings.clientId(),
-                    subscribedFilters());
+                    filterSummary(subscribed));
+            LOG.debug("subscribed filters: {}", subscribed);
         } catch (Exception e) {
             if (closed) {
                 return;
@@ -101,6 +106,17 @@ abstract class ReconnectingSource implements MessageSource {
             watch.set(ConnectionState.DISCONNECTED, Optional.of(e));
             schedule(delay);
         }
+    }
+
+    /** How many filters of this client there are, and the first few: a log line of bounded length. */
+    static String filterSummary(List<String> filters) {
+        int shown = Math.min(FILTERS_SHOWN, filters.size());
+        String first = String.join(", ", filters.subList(0, shown));
+        if (filters.size() <= FILTERS_SHOWN) {
+            return filters.size() + (filters.size() == 1 ? " filter: " : " filters: ") + first;
+        }
+        return filters.size() + " filters: " + first + ", ... (" + (filters.size() - shown)
+                + " more, listed at DEBUG)";
     }
 
     /** Called by a subclass for each message the client receives. */

@@ -255,6 +255,166 @@ class SnapshotAlignerTest {
                         () -> new SnapshotAligner(UNIT, Duration.ofSeconds(1), Duration.ofSeconds(-1))));
     }
 
+    // ---- release of a complete snapshot before the allowed lateness
+
+    /** An aligner that releases complete snapshots at once, as live ingestion uses it. */
+    private static SnapshotAligner releasing(long latenessMillis) {
+        return new SnapshotAligner(UNIT, Duration.ofSeconds(1), Duration.ofMillis(latenessMillis), true);
+    }
+
+    @Test
+    void withoutReleaseWhenCompleteACompleteSnapshotWaitsForTheLatenessAsAReplayWants() {
+        SnapshotAligner a = aligner(500);
+        a.advanceTo(T0 + 1_000);
+        a.offer(PRESSURE, T0 + 1_000, 16e6);
+        a.offer(TEMPERATURE, T0 + 1_000, 800.0);
+        assertEquals(List.of(), a.advanceTo(T0 + 1_500));
+        assertEquals(List.of(Instant.ofEpochMilli(T0 + 1_000)), times(a.advanceTo(T0 + 1_501)));
+    }
+
+    private static List<Instant> times(List<Snapshot> snapshots) {
+        return snapshots.stream().map(Snapshot::timestamp).toList();
+    }
+
+    @Test
+    void snapshotIsReleasedAsSoonAsEverySensorHasAReadingForItsPeriod() {
+        SnapshotAligner a = releasing(500);
+        a.advanceTo(T0 + 1_005);
+        a.offer(PRESSURE, T0 + 1_000, 16e6);
+        assertEquals(List.of(), a.advanceTo(T0 + 1_006), "the temperature is still awaited");
+        a.offer(TEMPERATURE, T0 + 1_000, 800.0);
+        List<Snapshot> out = a.advanceTo(T0 + 1_007);
+        assertAll(
+                () -> assertEquals(List.of(Instant.ofEpochMilli(T0 + 1_000)), times(out),
+                        "released 7 ms after its time, not after the 500 ms lateness"),
+                () -> assertEquals(SensorStatus.GOOD, out.get(0).status()[TEMPERATURE]),
+                () -> assertEquals(800.0, out.get(0).valuesSi()[TEMPERATURE]));
+    }
+
+    @Test
+    void completeSnapshotWaitsForItsOwnTime() {
+        SnapshotAligner a = releasing(500);
+        a.advanceTo(T0 + 1_700);
+        a.offer(PRESSURE, T0 + 1_700, 16e6);
+        a.offer(TEMPERATURE, T0 + 1_700, 800.0);
+        // Both readings are for the snapshot at T0 + 2 s, which the clock has not reached.
+        assertEquals(List.of(), a.advanceTo(T0 + 1_800));
+        assertEquals(List.of(Instant.ofEpochMilli(T0 + 2_000)), times(a.advanceTo(T0 + 2_000)));
+    }
+
+    @Test
+    void incompleteSnapshotIsReleasedAtTheAllowedLateness() {
+        SnapshotAligner a = releasing(500);
+        a.advanceTo(T0 + 1_000);
+        a.offer(PRESSURE, T0 + 1_000, 16e6);
+        a.offer(TEMPERATURE, T0 + 1_000, 800.0);
+        assertEquals(1, a.advanceTo(T0 + 1_001).size());
+        // The next period: only the pressure comes; the temperature (10 s max age) is still expected.
+        assertEquals(List.of(), a.advanceTo(T0 + 2_000));
+        assertEquals(Offer.ACCEPTED, a.offer(PRESSURE, T0 + 2_000, 16.1e6));
+        assertEquals(List.of(), a.advanceTo(T0 + 2_002));
+        assertEquals(List.of(), a.advanceTo(T0 + 2_500), "a snapshot at exactly now − lateness stays open");
+        List<Snapshot> out = a.advanceTo(T0 + 2_501);
+        assertAll(
+                () -> assertEquals(List.of(Instant.ofEpochMilli(T0 + 2_000)), times(out)),
+                () -> assertEquals(16.1e6, out.get(0).valuesSi()[PRESSURE]),
+                () -> assertEquals(SensorStatus.GOOD, out.get(0).status()[TEMPERATURE], "its last reading is 1 s old"));
+    }
+
+    @Test
+    void aSensorThatHasTurnedStaleIsNotAwaited() {
+        SnapshotAligner a = releasing(500);
+        a.advanceTo(T0 + 1_000);
+        a.offer(PRESSURE, T0 + 1_000, 16e6);
+        a.offer(TEMPERATURE, T0 + 1_000, 800.0);
+        a.advanceTo(T0 + 1_001);
+        // The temperature falls silent; with a 10 s max age it is awaited until T0 + 11 s.
+        for (long s = 2; s <= 11; s++) {
+            a.offer(PRESSURE, T0 + 1_000 * s, 16e6);
+            assertEquals(List.of(), a.advanceTo(T0 + 1_000 * s + 1), "awaited at " + s + " s");
+            assertEquals(1, a.advanceTo(T0 + 1_000 * s + 501).size());
+        }
+        a.offer(PRESSURE, T0 + 12_000, 16e6);
+        List<Snapshot> out = a.advanceTo(T0 + 12_001);
+        assertAll(
+                () -> assertEquals(List.of(Instant.ofEpochMilli(T0 + 12_000)), times(out), "released at once"),
+                () -> assertEquals(SensorStatus.STALE, out.get(0).status()[TEMPERATURE]));
+    }
+
+    @Test
+    void aSensorWithNoReadingIsAwaitedForItsMaxAgeFromTheFirstSnapshot() {
+        SnapshotAligner a = releasing(500);
+        a.advanceTo(T0 + 1_000);
+        // Only the pressure ever reports: the grid starts at T0 + 1 s, the temperature (10 s) is
+        // known missing from T0 + 11 s.
+        for (long s = 1; s <= 10; s++) {
+            a.offer(PRESSURE, T0 + 1_000 * s, 16e6);
+            assertEquals(List.of(), a.advanceTo(T0 + 1_000 * s + 1), "awaited at " + s + " s");
+            assertEquals(1, a.advanceTo(T0 + 1_000 * s + 501).size());
+        }
+        a.offer(PRESSURE, T0 + 11_000, 16e6);
+        List<Snapshot> out = a.advanceTo(T0 + 11_001);
+        assertAll(
+                () -> assertEquals(List.of(Instant.ofEpochMilli(T0 + 11_000)), times(out)),
+                () -> assertEquals(SensorStatus.MISSING, out.get(0).status()[TEMPERATURE]));
+    }
+
+    @Test
+    void aReadingAfterEarlyReleaseIsTakenAsBeforeAndTheSnapshotIsNotReleasedAgain() {
+        SnapshotAligner a = releasing(500);
+        a.advanceTo(T0 + 1_000);
+        a.offer(PRESSURE, T0 + 900, 16e6);
+        a.offer(TEMPERATURE, T0 + 900, 800.0);
+        List<Snapshot> first = a.advanceTo(T0 + 1_000);
+        assertEquals(List.of(Instant.ofEpochMilli(T0 + 1_000)), times(first));
+        // A second pressure for the same period, within the lateness: the snapshot is out, so it is
+        // the base of later snapshots, as a reading after the lateness always was.
+        assertAll(
+                () -> assertEquals(Offer.ACCEPTED, a.offer(PRESSURE, T0 + 950, 16.2e6)),
+                () -> assertEquals(Offer.SUPERSEDED, a.offer(PRESSURE, T0 + 920, 16.1e6)),
+                () -> assertEquals(Offer.DUPLICATE, a.offer(TEMPERATURE, T0 + 900, 800.0)));
+        assertEquals(List.of(), a.advanceTo(T0 + 1_501), "not released a second time at the lateness");
+        assertEquals(List.of(), a.drain(), "nor by a drain");
+        List<Snapshot> next = a.advanceTo(T0 + 2_501);
+        assertAll(
+                () -> assertEquals(List.of(Instant.ofEpochMilli(T0 + 2_000)), times(next)),
+                () -> assertEquals(16e6, first.get(0).valuesSi()[PRESSURE], "the released snapshot is unchanged"),
+                () -> assertEquals(16.2e6, next.get(0).valuesSi()[PRESSURE]));
+    }
+
+    @Test
+    void readingsAlreadyInForTheFollowingSnapshotReleaseItOnceItsTimeComes() {
+        SnapshotAligner a = releasing(500);
+        a.advanceTo(T0 + 1_000);
+        a.offer(PRESSURE, T0 + 1_000, 16e6);
+        a.offer(TEMPERATURE, T0 + 1_000, 800.0);
+        a.offer(PRESSURE, T0 + 1_400, 16.1e6);
+        a.offer(TEMPERATURE, T0 + 1_400, 801.0);
+        assertEquals(List.of(Instant.ofEpochMilli(T0 + 1_000)), times(a.advanceTo(T0 + 1_000)));
+        assertEquals(List.of(), a.advanceTo(T0 + 1_999));
+        assertEquals(List.of(Instant.ofEpochMilli(T0 + 2_000)), times(a.advanceTo(T0 + 2_000)),
+                "no new reading needed to find it complete");
+    }
+
+    @Test
+    void completeSnapshotBehindAnIncompleteOneGoesWithItAtTheLateness() {
+        SnapshotAligner a = releasing(500);
+        a.advanceTo(T0 + 1_000);
+        a.offer(PRESSURE, T0 + 1_000, 16e6);
+        a.offer(TEMPERATURE, T0 + 1_000, 800.0);
+        a.advanceTo(T0 + 1_001);
+        // T0 + 2 s lacks the temperature; T0 + 3 s has both, in before T0 + 2 s is due.
+        a.advanceTo(T0 + 2_000);
+        a.offer(PRESSURE, T0 + 2_000, 16e6);
+        a.advanceTo(T0 + 2_001);
+        a.advanceTo(T0 + 2_400);
+        a.offer(PRESSURE, T0 + 2_400, 16e6);
+        a.offer(TEMPERATURE, T0 + 2_400, 801.0);
+        assertEquals(List.of(), a.advanceTo(T0 + 2_400));
+        assertEquals(List.of(Instant.ofEpochMilli(T0 + 2_000), Instant.ofEpochMilli(T0 + 3_000)),
+                times(a.advanceTo(T0 + 3_000)), "T0 + 2 s at its lateness bound, T0 + 3 s at once behind it");
+    }
+
     private static void assertSameSnapshot(Snapshot expected, Snapshot actual, String where) {
         assertAll(where,
                 () -> assertEquals(expected.timestamp(), actual.timestamp()),

@@ -281,6 +281,29 @@ class IngestPipelineTest {
     }
 
     @Test
+    void unitsSnapshotIsHandedOverWhenTheReadingThatCompletesItIsTakenInNotAtTheLateness() {
+        IngestPipeline p = pipeline(settings().allowedLateness(Duration.ofMillis(500)));
+        clock.set(MS0 + 3);
+        send(p, PT_TOPIC, reading(16.0, MS0));
+        send(p, TT_TOPIC, reading(540, MS0));
+        send(p, FT_TOPIC, reading(360, MS0));
+        assertEquals(Optional.empty(), p.slot("unit1").poll(), "the barometer of unit 1 is still awaited");
+        send(p, PB_TOPIC, reading(101.3, MS0));
+        // No tick and no clock movement: the message itself released it, 3 ms after its time.
+        Snapshot s = p.slot("unit1").poll().orElseThrow(() -> new AssertionError("complete snapshot not handed over"));
+        assertAll(
+                () -> assertEquals(T0, s.timestamp()),
+                () -> assertEquals(SensorStatus.GOOD, s.status()[FT]),
+                () -> assertEquals(Optional.empty(), p.slot("unit2").poll(), "unit 2 has no reading and waits"));
+        clock.set(MS0 + 501);
+        p.tick();
+        assertAll(
+                () -> assertEquals(Optional.empty(), p.slot("unit1").poll(), "not handed over again at the lateness"),
+                () -> assertEquals(1.0, registry.get("steamtally.snapshots.emitted").tag("unit", "unit1").counter()
+                        .count()));
+    }
+
+    @Test
     void slowConsumerGetsTheNewestSnapshotAndTheReplacedOnesAreCounted() {
         IngestPipeline p = pipeline();
         send(p, PT_TOPIC, reading(16.0, MS0));

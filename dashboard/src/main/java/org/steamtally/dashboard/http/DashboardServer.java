@@ -106,7 +106,7 @@ public final class DashboardServer {
         var plantResource = new PlantResource(plant);
         var history = new HistoryResource(vertx, plant, sources.history());
         var health = new HealthResource(sources.live());
-        var metrics = new MetricsResource(sources.meters());
+        var metrics = new MetricsResource(vertx, sources.meters());
         Buffer openApi = resource("openapi.yaml");
 
         Router r = Router.router(vertx);

@@ -6,6 +6,7 @@ import static org.junit.jupiter.api.Assertions.assertNotNull;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 import static org.steamtally.dashboard.fixture.TestDashboard.await;
 
+import io.micrometer.core.instrument.Gauge;
 import io.vertx.core.MultiMap;
 import io.vertx.core.buffer.Buffer;
 import io.vertx.core.http.HttpClient;
@@ -21,6 +22,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.CompletableFuture;
 import java.util.concurrent.TimeUnit;
+import java.util.concurrent.atomic.AtomicReference;
 import java.util.function.BooleanSupplier;
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.BeforeEach;
@@ -351,6 +353,19 @@ class DashboardApiTest {
         assertTrue(r.bodyAsString().contains("steamtally_dashboard_logins_total{outcome=\"failed\"} 1.0"),
                 r.bodyAsString());
         assertTrue(r.bodyAsString().contains("steamtally_dashboard_stream_clients"), r.bodyAsString());
+    }
+
+    @Test
+    void metricsAreWrittenOffTheEventLoopSoThatALargeRegistryDoesNotHoldUpTheStreams() {
+        AtomicReference<String> readOn = new AtomicReference<>();
+        Gauge.builder("test.thread.probe", () -> {
+            readOn.set(Thread.currentThread().getName());
+            return 1.0;
+        }).register(dash.meters);
+        HttpResponse<Buffer> r = await(get("/metrics").send());
+        assertEquals(200, r.statusCode());
+        assertTrue(r.bodyAsString().contains("test_thread_probe 1.0"), r.bodyAsString());
+        assertTrue(readOn.get() != null && !readOn.get().contains("eventloop"), "gauge read on " + readOn.get());
     }
 
     @Test

@@ -30,6 +30,9 @@ import org.steamtally.calc.cycle.UnitResult;
  *
  * <pre>
  * StoreLoadDriver h2 UNITS SECONDS             # records of UNITS units at 1 Hz for SECONDS simulated seconds
+ * StoreLoadDriver h2-batches UNITS SECONDS ROUNDS SIZE...
+ *                                              # records with their reconciliation, as the daemon writes
+ *                                              # them, in batches of each SIZE points taking turns
  * StoreLoadDriver influxdb URL UNITS SECONDS
  * StoreLoadDriver shift [DIR [ROUNDS [FIRST]]] # 8 h at 1 Hz for one unit, then shift summaries;
  *                                              # with DIR, the data of an earlier run there; ROUNDS
@@ -107,6 +110,8 @@ public final class StoreLoadDriver {
                     influx.query(new org.influxdb.dto.Query("DROP DATABASE \"" + db + "\"", null, true));
                 }
             }
+            case "h2-batches" -> batches(Integer.parseInt(args[1]), Integer.parseInt(args[2]),
+                    Integer.parseInt(args[3]), Arrays.stream(args, 4, args.length).mapToInt(Integer::parseInt).toArray());
             case "shift" -> shift(args.length > 1 ? Path.of(args[1]) : null,
                     args.length > 2 ? Integer.parseInt(args[2]) : 3, args.length > 3 && args[3].equals("rollup"));
             default -> throw new IllegalArgumentException("usage: h2 UNITS SECONDS | influxdb URL UNITS SECONDS"
@@ -114,15 +119,65 @@ public final class StoreLoadDriver {
         }
     }
 
+    /**
+     * Records with their reconciliation (72 points, as the daemon writes them) into a new embedded
+     * store per round and batch size, the batch sizes taking turns within each round so that all
+     * see the same machine load; prints each batch size's points/s per round and the median.
+     */
+    private static void batches(int units, int seconds, int rounds, int[] sizes) throws Exception {
+        List<List<Double>> rates = new ArrayList<>();
+        for (int b = 0; b < sizes.length; b++) {
+            rates.add(new ArrayList<>());
+        }
+        for (int r = 0; r < rounds; r++) {
+            for (int i = 0; i < sizes.length; i++) {
+                // Rotate who goes first, so that no batch size always meets a cold JIT or a warm cache.
+                int b = (i + r) % sizes.length;
+                Path dir = Files.createTempDirectory("steamtally-load-h2-batch");
+                double rate = run(H2Store.open(dir.resolve("data"), Duration.ofDays(3650), Duration.ofHours(1),
+                        Clock.systemUTC()), dir, units, seconds, sizes[b], true);
+                rates.get(b).add(rate);
+                System.out.printf("round %d, batch %d: %.0f points/s%n", r + 1, sizes[b], rate);
+            }
+        }
+        for (int b = 0; b < sizes.length; b++) {
+            double[] v = rates.get(b).stream().mapToDouble(Double::doubleValue).sorted().toArray();
+            System.out.printf("batch %d: median %.0f points/s over %d rounds (min %.0f, max %.0f)%n", sizes[b],
+                    v.length % 2 == 1 ? v[v.length / 2] : (v[v.length / 2 - 1] + v[v.length / 2]) / 2, v.length,
+                    v[0], v[v.length - 1]);
+        }
+    }
+
     /** Writes UNITS records per simulated second as fast as the store takes them. */
     private static void throughput(StoreBackend backend, Path dir, int units, int seconds) throws Exception {
-        int perRecord = ResultPoints.of(record("u", START, 0)).size();
-        try (SpooledStore store = SpooledStore.open(backend, SpoolSettings.forNominalRate(dir.resolve("spool"),
-                units * perRecord, 300), new SimpleMeterRegistry(), StoreListener.NONE, Clock.systemUTC())) {
+        run(backend, dir, units, seconds, 0, false);
+    }
+
+    /**
+     * Writes UNITS records (with their reconciliation when {@code withReconciliation}) per simulated
+     * second as fast as the store takes them, in batches of {@code batchSize} points (0: the default).
+     *
+     * @return points per second
+     */
+    private static double run(StoreBackend backend, Path dir, int units, int seconds, int batchSize,
+            boolean withReconciliation) throws Exception {
+        int perRecord = ResultPoints.of(record("u", START, 0)).size()
+                + (withReconciliation ? ResultPoints.of(reconciliation("u", START, 0)).size() : 0);
+        SpoolSettings settings = SpoolSettings.forNominalRate(dir.resolve("spool"), units * perRecord, 300);
+        if (batchSize > 0) {
+            settings = new SpoolSettings(settings.spoolDir(), settings.queueCapacity(), batchSize,
+                    settings.spoolMaxBytes(), settings.segmentBytes(), settings.syncInterval(), settings.retryMin(),
+                    settings.retryMax());
+        }
+        try (SpooledStore store = SpooledStore.open(backend, settings, new SimpleMeterRegistry(), StoreListener.NONE,
+                Clock.systemUTC())) {
             // Warm-up: one simulated minute, not counted.
             for (int k = 0; k < 60; k++) {
                 for (int u = 0; u < units; u++) {
                     store.writeResult(record("unit" + u, START.minusSeconds(3600 - k), k));
+                    if (withReconciliation) {
+                        store.writeReconciliation(reconciliation("unit" + u, START.minusSeconds(3600 - k), k));
+                    }
                 }
                 store.flush(Duration.ofMinutes(5));
             }
@@ -131,6 +186,9 @@ public final class StoreLoadDriver {
             for (int k = 0; k < seconds; k++) {
                 for (int u = 0; u < units; u++) {
                     store.writeResult(record("unit" + u, START.plusSeconds(k), k));
+                    if (withReconciliation) {
+                        store.writeReconciliation(reconciliation("unit" + u, START.plusSeconds(k), k));
+                    }
                 }
                 // Bounded: keep at most a few simulated seconds in memory, as a live feed would.
                 if (k % 5 == 4 && !store.flush(Duration.ofMinutes(5))) {
@@ -146,6 +204,7 @@ public final class StoreLoadDriver {
                     + " (1 Hz per unit needs %d points/s), spooled %d%n", backend.name(), units, seconds,
                     perRecord, points, s, points / s, units * (double) seconds / s, units * perRecord,
                     store.spooledPoints());
+            return points / s;
         }
     }
 

@@ -1,0 +1,21 @@
+#!/bin/sh
+# The fleet benchmark: N copies of the regenerative example's unit at 1 Hz per sensor through a
+# Mosquitto of its own (a free port, never 1883 or 8086) into `steamtally.jar run` (a child JVM,
+# -Xmx512m, embedded store in a temporary directory), with one live stream per unit open on the
+# dashboard; prints the figures and one PASS or FAIL line, exit status 1 when a target is missed.
+# Both children are stopped on exit or Ctrl-C. The driver is FleetLoadDriver (deploy, test scope).
+#
+# Build first:  mvn -B -q package -DskipTests
+# Run from the repository root:
+#   sh deploy/bench/fleet.sh [units=100] [warmup=60] [measure=300] [lateness=500ms] [heap=512m]
+#                            [drain=300] [keep=true] [jvm='-XX:+UseSerialGC'] [report=FILE]
+# Needs the `mosquitto` binary (Debian package mosquitto) and the JDK's jstat on the PATH.
+set -eu
+
+jar=deploy/target/steamtally.jar
+classes=deploy/target/test-classes
+if [ ! -f "$jar" ] || [ ! -f "$classes/org/steamtally/deploy/bench/FleetLoadDriver.class" ]; then
+    echo "no $jar or driver classes; build them first with: mvn -B -q package -DskipTests" >&2
+    exit 2
+fi
+exec java -Xmx256m -cp "$classes:$jar" org.steamtally.deploy.bench.FleetLoadDriver "$@"
