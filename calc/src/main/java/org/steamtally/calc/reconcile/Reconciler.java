@@ -1112,7 +1112,8 @@ public final class Reconciler {
             int nr = nc - rb;
             // Gᵀ = Âᵀ Q₂, one column per remaining balance, from the columns of Q₂ (Q applied to unit
             // vectors): far fewer operations than Qᵀ Â in full, which only the last step needs.
-            double[][] gt = new double[nm][nr];
+            // by columns (one per remaining balance), the layout PivotedQr factors in
+            double[][] gt = new double[nr][nm];
             double[] q2 = new double[nc];
             for (int k = 0; k < nr; k++) {
                 Arrays.fill(q2, 0.0);
@@ -1122,8 +1123,9 @@ public final class Reconciler {
                     double qi = q2[i];
                     if (qi != 0.0) {
                         double[] row = aHat[i];
+                        double[] g = gt[k];
                         for (int a = 0; a < nm; a++) {
-                            gt[a][k] += qi * row[a];
+                            g[a] += qi * row[a];
                         }
                     }
                 }
@@ -1132,7 +1134,7 @@ public final class Reconciler {
             int red = 0;
             PivotedQr qg = null;
             if (nr > 0 && nm > 0) {
-                qg = new PivotedQr(gt, nm, nr, RANK_TOLERANCE, rowScale);
+                qg = PivotedQr.ofColumns(gt, nm, nr, RANK_TOLERANCE, rowScale);
                 red = qg.rank;
                 double[] w = new double[nm];
                 for (int k = 0; k < red; k++) {
@@ -1295,7 +1297,7 @@ public final class Reconciler {
         for (int c = 0; c < free; c++) {
             double[] col = new double[Math.max(rb, 1)];
             for (int i = 0; i < rb; i++) {
-                col[i] = qb.r[i][rb + c];
+                col[i] = qb.r(i, rb + c);
             }
             qb.solveUpper(col);
             n[c] = col;
