@@ -1179,16 +1179,26 @@ public final class Reconciler {
                 s.converged = true;
                 s.redundancy = red;
                 statistics(s, ev, qg, red, nm);
-                double[][] qa = new double[nm][];
-                for (int a = 0; a < nm; a++) {
-                    double[] col = new double[nc];
+                // Q₁ᵀ Â from the rb columns of Q₁, as Gᵀ above: rows of Â combined contiguously instead
+                // of Qᵀ applied to each of the nm columns of Â
+                double[][] q1a = new double[rb][nm];
+                double[] q1 = new double[nc];
+                for (int k = 0; k < rb; k++) {
+                    Arrays.fill(q1, 0.0);
+                    q1[k] = 1.0;
+                    qb.applyQ(q1);
+                    double[] out = q1a[k];
                     for (int i = 0; i < nc; i++) {
-                        col[i] = aHat[i][a];
+                        double qi = q1[i];
+                        if (qi != 0.0) {
+                            double[] row = aHat[i];
+                            for (int a = 0; a < nm; a++) {
+                                out[a] += qi * row[a];
+                            }
+                        }
                     }
-                    qb.applyQt(col);
-                    qa[a] = col;
                 }
-                unknownStatistics(s, qb, qa, colScale, nm, nu);
+                unknownStatistics(s, qb, q1a, colScale, nm, nu);
                 double chi2 = 0.0;
                 for (int a = 0; a < nm; a++) {
                     chi2 += ev[a] * ev[a];
@@ -1248,16 +1258,17 @@ public final class Reconciler {
      * Observability of each unknown from the null space of B, and u(ŷ) of the observable ones from
      * ŷ − y = −K (x̂ − x) with K = R₁₁⁻¹ Q₁ᵀ Â and cov(x̂) = S^{1/2} (I − P) S^{1/2}.
      *
-     * @param qa Qᵀ Â by columns: {@code qa[a]} is Qᵀ times column a of Â
+     * @param q1a Q₁ᵀ Â by rows: {@code q1a[i][a]} is column i of Q (i below the rank of B) times
+     *            column a of Â
      */
-    private void unknownStatistics(Solution s, PivotedQr qb, double[][] qa, double[] colScale, int nm, int nu) {
+    private void unknownStatistics(Solution s, PivotedQr qb, double[][] q1a, double[] colScale, int nm, int nu) {
         int rb = qb.rank;
         markObservability(s, qb, nu);
         double[] k = new double[Math.max(rb, 1)];
         double[][] kRows = new double[rb][nm];
         for (int a = 0; a < nm; a++) {
             for (int i = 0; i < rb; i++) {
-                k[i] = qa[a][i];
+                k[i] = q1a[i][a];
             }
             qb.solveUpper(k);
             for (int i = 0; i < rb; i++) {
@@ -1265,6 +1276,7 @@ public final class Reconciler {
             }
         }
         int red = s.redundancy;
+        double[] dots = new double[red];
         for (int i = 0; i < rb; i++) {
             int u = qb.perm[i];
             if (!s.observableUnknown[u]) {
@@ -1274,13 +1286,19 @@ public final class Reconciler {
             for (int a = 0; a < nm; a++) {
                 total += kRows[i][a] * kRows[i][a];
             }
+            // basis is held by rows: accumulate all red dot products in one pass over a
+            Arrays.fill(dots, 0.0);
+            double[] ki = kRows[i];
+            for (int a = 0; a < nm; a++) {
+                double ka = ki[a];
+                double[] basisRow = s.basis[a];
+                for (int c = 0; c < red; c++) {
+                    dots[c] += ka * basisRow[c];
+                }
+            }
             double projected = 0.0;
             for (int c = 0; c < red; c++) {
-                double dot = 0.0;
-                for (int a = 0; a < nm; a++) {
-                    dot += kRows[i][a] * s.basis[a][c];
-                }
-                projected += dot * dot;
+                projected += dots[c] * dots[c];
             }
             s.sigmaUnknown[u] = colScale[u] * Math.sqrt(Math.max(0.0, total - projected));
         }
