@@ -132,11 +132,7 @@ final class PivotedQr {
             v[k] = v0;
             for (int j = k + 1; j < cols; j++) {
                 double[] w = c[j];
-                double s = 0.0;
-                for (int i = k; i < rows; i++) {
-                    s += v[i] * w[i];
-                }
-                s *= b;
+                double s = dot(v, w, k, rows) * b;
                 if (s != 0.0) {
                     for (int i = k; i < rows; i++) {
                         w[i] -= s * v[i];
@@ -160,11 +156,30 @@ final class PivotedQr {
     }
 
     private double norm2(double[] column, int from) {
-        double s = 0.0;
-        for (int i = from; i < rows; i++) {
-            s += column[i] * column[i];
+        return dot(column, column, from, rows);
+    }
+
+    /**
+     * Σ x_i y_i over [from, to), in four interleaved partial sums: the JIT does not reorder a
+     * floating-point sum, so a single accumulator waits on the adder's latency at every term. Only
+     * the rounding differs from the sum in order.
+     */
+    private static double dot(double[] x, double[] y, int from, int to) {
+        double s0 = 0.0;
+        double s1 = 0.0;
+        double s2 = 0.0;
+        double s3 = 0.0;
+        int i = from;
+        for (; i + 3 < to; i += 4) {
+            s0 += x[i] * y[i];
+            s1 += x[i + 1] * y[i + 1];
+            s2 += x[i + 2] * y[i + 2];
+            s3 += x[i + 3] * y[i + 3];
         }
-        return s;
+        for (; i < to; i++) {
+            s0 += x[i] * y[i];
+        }
+        return (s0 + s1) + (s2 + s3);
     }
 
     /** Entry (i, j) of R, i ≤ j, i < {@link #rank}, in pivoted column order. */
@@ -189,11 +204,7 @@ final class PivotedQr {
     private void reflect(int k, double[] b) {
         double[] v = a[k];
         double h = head[k];
-        double s = h * b[k];
-        for (int i = k + 1; i < rows; i++) {
-            s += v[i] * b[i];
-        }
-        s *= beta[k];
+        double s = (h * b[k] + dot(v, b, k + 1, rows)) * beta[k];
         if (s != 0.0) {
             b[k] -= s * h;
             for (int i = k + 1; i < rows; i++) {

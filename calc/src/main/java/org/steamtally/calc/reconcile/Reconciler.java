@@ -1054,6 +1054,7 @@ public final class Reconciler {
         double[][] bHat = new double[nc][nu];
         double[][] aHat = new double[nc][nm];
         double[] r = new double[nc];
+        double[] adjust = new double[nm];
         if (nc == 0) {
             s.converged = true;
             s.status = ReconciliationResult.NO_REDUNDANCY;
@@ -1083,17 +1084,25 @@ public final class Reconciler {
                 }
                 colScale[u] = n2 > 0.0 ? 1.0 / Math.sqrt(n2) : 1.0;
             }
+            int[] measured = s.measured;
+            int[] unknown = s.unknown;
+            for (int a = 0; a < nm; a++) {
+                int z = measured[a];
+                adjust[a] = xm[z] - s.value[z];
+            }
             for (int i = 0; i < nc; i++) {
+                double[] ji = jac[i];
+                double[] ai = aHat[i];
                 double ri = f[i];
                 for (int a = 0; a < nm; a++) {
-                    int z = s.measured[a];
-                    double coef = jac[i][z];
-                    aHat[i][a] = coef * sigma[a];
-                    ri += coef * (xm[z] - s.value[z]);
+                    double coef = ji[measured[a]];
+                    ai[a] = coef * sigma[a];
+                    ri += coef * adjust[a];
                 }
                 r[i] = ri;
+                double[] bi = bHat[i];
                 for (int u = 0; u < nu; u++) {
-                    bHat[i][u] = jac[i][s.unknown[u]] * colScale[u];
+                    bi[u] = ji[unknown[u]] * colScale[u];
                 }
             }
             // Q is orthogonal, so the balances of G = Q₂ᵀ Â are of the order of the longest row of Â at most.
