@@ -201,6 +201,16 @@ final class PivotedQr {
         }
     }
 
+    /**
+     * b ← Q b for a b whose entries after {@code last} are zero (a unit vector e_last, say):
+     * reflectors past {@code last} act on those entries only and leave b as it is, so are skipped.
+     */
+    void applyQ(double[] b, int last) {
+        for (int k = Math.min(rank - 1, last); k >= 0; k--) {
+            reflect(k, b);
+        }
+    }
+
     private void reflect(int k, double[] b) {
         double[] v = a[k];
         double h = head[k];

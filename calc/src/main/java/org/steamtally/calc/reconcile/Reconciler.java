@@ -1195,7 +1195,7 @@ public final class Reconciler {
                 for (int k = 0; k < rb; k++) {
                     Arrays.fill(q1, 0.0);
                     q1[k] = 1.0;
-                    qb.applyQ(q1);
+                    qb.applyQ(q1, k);
                     double[] out = q1a[k];
                     for (int i = 0; i < nc; i++) {
                         double qi = q1[i];
@@ -1245,7 +1245,7 @@ public final class Reconciler {
             for (int k = 0; k < red; k++) {
                 Arrays.fill(col, 0.0);
                 col[k] = 1.0;
-                qg.applyQ(col);
+                qg.applyQ(col, k);
                 for (int a = 0; a < nm; a++) {
                     s.basis[a][k] = col[a];
                 }

@@ -99,4 +99,18 @@ class PivotedQrTest {
             }
         }
     }
+
+    @Test
+    void qTimesAUnitVectorSkippingTheReflectorsPastItsEntryEqualsTheFullProduct() {
+        double[][] a = {{4, 1, 0}, {1, 3, 1}, {0, 1, 2}, {2, 0, 1}, {1, 1, 1}};
+        PivotedQr qr = new PivotedQr(a, 5, 3, 1e-10);
+        for (int k = 0; k < 3; k++) {
+            double[] full = new double[5];
+            full[k] = 1.0;
+            double[] part = full.clone();
+            qr.applyQ(full);
+            qr.applyQ(part, k);
+            assertArrayEquals(full, part, 0.0, "column " + k + " of Q");
+        }
+    }
 }
