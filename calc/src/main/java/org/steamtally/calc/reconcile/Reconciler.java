@@ -1054,6 +1054,7 @@ public final class Reconciler {
         double[][] bHat = new double[nc][nu];
         double[][] aHat = new double[nc][nm];
         double[] r = new double[nc];
+        double[] adjust = new double[nm];
         if (nc == 0) {
             s.converged = true;
             s.status = ReconciliationResult.NO_REDUNDANCY;
@@ -1083,17 +1084,25 @@ public final class Reconciler {
                 }
                 colScale[u] = n2 > 0.0 ? 1.0 / Math.sqrt(n2) : 1.0;
             }
+            int[] measured = s.measured;
+            int[] unknown = s.unknown;
+            for (int a = 0; a < nm; a++) {
+                int z = measured[a];
+                adjust[a] = xm[z] - s.value[z];
+            }
             for (int i = 0; i < nc; i++) {
+                double[] ji = jac[i];
+                double[] ai = aHat[i];
                 double ri = f[i];
                 for (int a = 0; a < nm; a++) {
-                    int z = s.measured[a];
-                    double coef = jac[i][z];
-                    aHat[i][a] = coef * sigma[a];
-                    ri += coef * (xm[z] - s.value[z]);
+                    double coef = ji[measured[a]];
+                    ai[a] = coef * sigma[a];
+                    ri += coef * adjust[a];
                 }
                 r[i] = ri;
+                double[] bi = bHat[i];
                 for (int u = 0; u < nu; u++) {
-                    bHat[i][u] = jac[i][s.unknown[u]] * colScale[u];
+                    bi[u] = ji[unknown[u]] * colScale[u];
                 }
             }
             // Q is orthogonal, so the balances of G = Q₂ᵀ Â are of the order of the longest row of Â at most.
@@ -1112,7 +1121,8 @@ public final class Reconciler {
             int nr = nc - rb;
             // Gᵀ = Âᵀ Q₂, one column per remaining balance, from the columns of Q₂ (Q applied to unit
             // vectors): far fewer operations than Qᵀ Â in full, which only the last step needs.
-            double[][] gt = new double[nm][nr];
+            // by columns (one per remaining balance), the layout PivotedQr factors in
+            double[][] gt = new double[nr][nm];
             double[] q2 = new double[nc];
             for (int k = 0; k < nr; k++) {
                 Arrays.fill(q2, 0.0);
@@ -1122,8 +1132,9 @@ public final class Reconciler {
                     double qi = q2[i];
                     if (qi != 0.0) {
                         double[] row = aHat[i];
+                        double[] g = gt[k];
                         for (int a = 0; a < nm; a++) {
-                            gt[a][k] += qi * row[a];
+                            g[a] += qi * row[a];
                         }
                     }
                 }
@@ -1132,7 +1143,7 @@ public final class Reconciler {
             int red = 0;
             PivotedQr qg = null;
             if (nr > 0 && nm > 0) {
-                qg = new PivotedQr(gt, nm, nr, RANK_TOLERANCE, rowScale);
+                qg = PivotedQr.ofColumns(gt, nm, nr, RANK_TOLERANCE, rowScale);
                 red = qg.rank;
                 double[] w = new double[nm];
                 for (int k = 0; k < red; k++) {
@@ -1177,16 +1188,26 @@ public final class Reconciler {
                 s.converged = true;
                 s.redundancy = red;
                 statistics(s, ev, qg, red, nm);
-                double[][] qa = new double[nm][];
-                for (int a = 0; a < nm; a++) {
-                    double[] col = new double[nc];
+                // Q₁ᵀ Â from the rb columns of Q₁, as Gᵀ above: rows of Â combined contiguously instead
+                // of Qᵀ applied to each of the nm columns of Â
+                double[][] q1a = new double[rb][nm];
+                double[] q1 = new double[nc];
+                for (int k = 0; k < rb; k++) {
+                    Arrays.fill(q1, 0.0);
+                    q1[k] = 1.0;
+                    qb.applyQ(q1, k);
+                    double[] out = q1a[k];
                     for (int i = 0; i < nc; i++) {
-                        col[i] = aHat[i][a];
+                        double qi = q1[i];
+                        if (qi != 0.0) {
+                            double[] row = aHat[i];
+                            for (int a = 0; a < nm; a++) {
+                                out[a] += qi * row[a];
+                            }
+                        }
                     }
-                    qb.applyQt(col);
-                    qa[a] = col;
                 }
-                unknownStatistics(s, qb, qa, colScale, nm, nu);
+                unknownStatistics(s, qb, q1a, colScale, nm, nu);
                 double chi2 = 0.0;
                 for (int a = 0; a < nm; a++) {
                     chi2 += ev[a] * ev[a];
@@ -1224,7 +1245,7 @@ public final class Reconciler {
             for (int k = 0; k < red; k++) {
                 Arrays.fill(col, 0.0);
                 col[k] = 1.0;
-                qg.applyQ(col);
+                qg.applyQ(col, k);
                 for (int a = 0; a < nm; a++) {
                     s.basis[a][k] = col[a];
                 }
@@ -1246,16 +1267,17 @@ public final class Reconciler {
      * Observability of each unknown from the null space of B, and u(ŷ) of the observable ones from
      * ŷ − y = −K (x̂ − x) with K = R₁₁⁻¹ Q₁ᵀ Â and cov(x̂) = S^{1/2} (I − P) S^{1/2}.
      *
-     * @param qa Qᵀ Â by columns: {@code qa[a]} is Qᵀ times column a of Â
+     * @param q1a Q₁ᵀ Â by rows: {@code q1a[i][a]} is column i of Q (i below the rank of B) times
+     *            column a of Â
      */
-    private void unknownStatistics(Solution s, PivotedQr qb, double[][] qa, double[] colScale, int nm, int nu) {
+    private void unknownStatistics(Solution s, PivotedQr qb, double[][] q1a, double[] colScale, int nm, int nu) {
         int rb = qb.rank;
         markObservability(s, qb, nu);
         double[] k = new double[Math.max(rb, 1)];
         double[][] kRows = new double[rb][nm];
         for (int a = 0; a < nm; a++) {
             for (int i = 0; i < rb; i++) {
-                k[i] = qa[a][i];
+                k[i] = q1a[i][a];
             }
             qb.solveUpper(k);
             for (int i = 0; i < rb; i++) {
@@ -1263,6 +1285,7 @@ public final class Reconciler {
             }
         }
         int red = s.redundancy;
+        double[] dots = new double[red];
         for (int i = 0; i < rb; i++) {
             int u = qb.perm[i];
             if (!s.observableUnknown[u]) {
@@ -1272,13 +1295,19 @@ public final class Reconciler {
             for (int a = 0; a < nm; a++) {
                 total += kRows[i][a] * kRows[i][a];
             }
+            // basis is held by rows: accumulate all red dot products in one pass over a
+            Arrays.fill(dots, 0.0);
+            double[] ki = kRows[i];
+            for (int a = 0; a < nm; a++) {
+                double ka = ki[a];
+                double[] basisRow = s.basis[a];
+                for (int c = 0; c < red; c++) {
+                    dots[c] += ka * basisRow[c];
+                }
+            }
             double projected = 0.0;
             for (int c = 0; c < red; c++) {
-                double dot = 0.0;
-                for (int a = 0; a < nm; a++) {
-                    dot += kRows[i][a] * s.basis[a][c];
-                }
-                projected += dot * dot;
+                projected += dots[c] * dots[c];
             }
             s.sigmaUnknown[u] = colScale[u] * Math.sqrt(Math.max(0.0, total - projected));
         }
@@ -1295,7 +1324,7 @@ public final class Reconciler {
         for (int c = 0; c < free; c++) {
             double[] col = new double[Math.max(rb, 1)];
             for (int i = 0; i < rb; i++) {
-                col[i] = qb.r[i][rb + c];
+                col[i] = qb.r(i, rb + c);
             }
             qb.solveUpper(col);
             n[c] = col;
