@@ -558,7 +558,7 @@ public final class Reconciler {
             usable[sensorCount + k] = true;
         }
         boolean[] removed = new boolean[inputCount];
-        Solution base = solve(measured, usable, removed);
+        Solution base = solve(measured, usable, removed, null);
 
         List<Suspect> suspects = new ArrayList<>();
         boolean[] suspect = new boolean[inputCount];
@@ -574,7 +574,7 @@ public final class Reconciler {
                 List<Integer> set = new ArrayList<>(current.equivalents(candidate));
                 candidate = set.get(0);
                 removed[candidate] = true;
-                Solution next = solve(measured, usable, removed);
+                Solution next = solve(measured, usable, removed, base);
                 // The balances cannot order the members of a set to first order, but a gross error
                 // that takes a state out of its region can: removing the wrong member then leaves
                 // a fit that does not converge or fits far worse. Name the member whose removal fits
@@ -583,7 +583,7 @@ public final class Reconciler {
                     int other = set.get(k);
                     removed[candidate] = false;
                     removed[other] = true;
-                    Solution alternative = solve(measured, usable, removed);
+                    Solution alternative = solve(measured, usable, removed, base);
                     if (fitsBetter(alternative, next)) {
                         candidate = other;
                         next = alternative;
@@ -788,7 +788,14 @@ public final class Reconciler {
         }
     }
 
-    private Solution solve(double[] measuredValues, boolean[] usable, boolean[] removed) {
+    /**
+     * One reconciliation with the quantities {@code removed} made unmeasured.
+     *
+     * @param start a converged fit of the same snapshot whose estimates the unknowns start from (a
+     *              serial-elimination re-solve starts next to the answer and needs fewer
+     *              linearisations); null to start from the measured values and plain guesses
+     */
+    private Solution solve(double[] measuredValues, boolean[] usable, boolean[] removed, Solution start) {
         int size = inputCount + 2 * stateCount;
         Solution s = new Solution(size);
         for (int q = 0; q < inputCount; q++) {
@@ -822,6 +829,14 @@ public final class Reconciler {
                 int z = inputCount + stateCount + j;
                 s.role[z] = UNKNOWN;
                 s.value[z] = enthalpyGuess(e, j, measuredValues);
+            }
+        }
+        if (start != null && start.converged) {
+            for (int z = 0; z < size; z++) {
+                boolean estimatedThere = start.role[z] == MEASURED || start.role[z] == UNKNOWN;
+                if (s.role[z] == UNKNOWN && estimatedThere && Double.isFinite(start.value[z])) {
+                    s.value[z] = start.value[z];
+                }
             }
         }
         for (int r = 0; r < rowCount; r++) {

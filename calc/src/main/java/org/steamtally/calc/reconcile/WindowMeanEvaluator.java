@@ -1,9 +1,7 @@
 package org.steamtally.calc.reconcile;
 
 import java.util.ArrayList;
-import java.util.HashMap;
 import java.util.List;
-import java.util.Map;
 import java.util.Objects;
 import org.steamtally.calc.cycle.Snapshot;
 import org.steamtally.calc.cycle.UnitResult;
@@ -41,7 +39,7 @@ import org.steamtally.calc.plant.UnitDescription;
  * smallest count of good values over the sensors that have any, so a sensor that dropped out for a
  * while makes the uncertainties of all a little wider than they need be, never narrower.
  *
- * <p>One compiled evaluator is kept per n_eff met so far (at most the window length), compiled on
+ * <p>Compiled evaluators are kept for the full window and for the last other n_eff met, compiled on
  * first use. Not thread-safe: one instance per unit and thread.
  */
 public final class WindowMeanEvaluator {
@@ -51,7 +49,15 @@ public final class WindowMeanEvaluator {
     private final int window;
     private final double[][] values;
     private final boolean[][] good;
-    private final Map<Integer, ReconcilingEvaluator> byCount = new HashMap<>();
+    /**
+     * The evaluator of a full window, and of the last other n_eff met. Only these two are kept: a
+     * compiled evaluator is large (its cycle model and reconciliation), and a daemon with a hundred
+     * units that kept one per n_eff would hold thousands of them; a window that fills or a sensor
+     * that drops out compiles a few more, once per change of n_eff.
+     */
+    private ReconcilingEvaluator full;
+    private ReconcilingEvaluator partial;
+    private int partialCount;
     private int next;
     private int held;
 
@@ -141,7 +147,17 @@ public final class WindowMeanEvaluator {
     }
 
     private ReconcilingEvaluator evaluatorFor(int count) {
-        return byCount.computeIfAbsent(count, c -> ReconcilingEvaluator.compile(siteId, meanUncertainties(unit, c)));
+        if (count == window) {
+            if (full == null) {
+                full = ReconcilingEvaluator.compile(siteId, meanUncertainties(unit, count));
+            }
+            return full;
+        }
+        if (partial == null || partialCount != count) {
+            partial = ReconcilingEvaluator.compile(siteId, meanUncertainties(unit, count));
+            partialCount = count;
+        }
+        return partial;
     }
 
     /** The unit with every sensor's standard uncertainty divided by √count: that of a mean of count readings. */
