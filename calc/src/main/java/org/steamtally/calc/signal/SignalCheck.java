@@ -174,8 +174,10 @@ public final class SignalCheck {
             double frozenS = Math.max(0L, nowMs - runSinceMs) / 1000.0;
             SignalVerdict frozen = frozenS >= frozenLimitS ? SignalVerdict.FAIL : SignalVerdict.PASS;
 
-            double d2 = Double.NaN;
-            if (hasLast) {
+            // The squared step from the last good reading; none right after a start or a gap.
+            boolean stepped = hasLast;
+            double d2 = 0.0;
+            if (stepped) {
                 double d = v - last;
                 d2 = d * d;
                 push(warm && expected > 0.0 ? Math.min(d2, CLIP * expected) : d2);
@@ -193,7 +195,7 @@ public final class SignalCheck {
                 // Held readings are no history of the sensor's scatter: warm up afresh once it moves.
                 learned = 0;
                 expected = 0.0;
-            } else if (!Double.isNaN(d2) && frozen != SignalVerdict.FAIL && scatter != SignalVerdict.FAIL) {
+            } else if (stepped && frozen != SignalVerdict.FAIL && scatter != SignalVerdict.FAIL) {
                 learn(d2, settings);
             }
             return new SensorSignal(id, frozenS, frozenLimitS, frozen, ratio, scatterLimit, scatter, expected);

@@ -71,6 +71,7 @@ class DuplicateTransmitterTest {
                 .filter(x -> x.id().equals("m_msB")).findFirst().orElseThrow();
         assertAll(
                 () -> assertEquals(2.802, Reliability.DELTA0_SNAPSHOT, 5e-4),
+                // the window suspect limit 4.0 plus z(0.95) = 1.645 (normal quantile, recalled from memory; docs/DETECTION.md)
                 () -> assertEquals(5.645, Reliability.DELTA0_WINDOW, 5e-4),
                 () -> assertEquals(0.5, m.redundancyNumber(), 1e-9),
                 () -> assertEquals(0.5, m.windowRedundancy(), 1e-9),
