@@ -1,15 +1,17 @@
 #!/bin/sh
 # The fleet benchmark: N copies of the regenerative example's unit at 1 Hz per sensor through a
 # Mosquitto of its own (a free port, never 1883 or 8086) into `steamtally.jar run` (a child JVM,
-# -Xmx512m, embedded store in a temporary directory), with one live stream per unit open on the
+# -Xmx512m, embedded store in a temporary directory, or store=influx: an influxd of its own on free
+# loopback ports, data in the same directory), with one live stream per unit open on the
 # dashboard; prints the figures and one PASS or FAIL line, exit status 1 when a target is missed.
 # Both children are stopped on exit or Ctrl-C. The driver is FleetLoadDriver (deploy, test scope).
 #
 # Build first:  mvn -B -q package -DskipTests
 # Run from the repository root:
 #   sh deploy/bench/fleet.sh [units=100] [warmup=60] [measure=300] [lateness=500ms] [heap=512m]
-#                            [drain=300] [keep=true] [jvm='-XX:+UseSerialGC'] [report=FILE]
-# Needs the `mosquitto` binary (Debian package mosquitto) and the JDK's jstat on the PATH.
+#                            [drain=300] [keep=true] [jvm='-XX:+UseSerialGC'] [report=FILE] [store=influx]
+# Needs the `mosquitto` binary (Debian package mosquitto) and the JDK's jstat on the PATH; store=influx
+# also `influxd` (Debian package influxdb, 1.x).
 set -eu
 
 jar=deploy/target/steamtally.jar

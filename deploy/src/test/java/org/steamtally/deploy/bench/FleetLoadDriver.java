@@ -50,7 +50,8 @@ import org.steamtally.deploy.daemon.ExampleDesignPoints;
 /**
  * The fleet benchmark, end to end: N copies of the regenerative example's unit at 1 Hz per sensor
  * through a Mosquitto of its own, into the daemon ({@code steamtally.jar run}, a child JVM with its
- * own heap limit and the embedded store), with one Server-Sent-Events stream per unit open on the
+ * own heap limit and the embedded store, or with {@code store=influx} an influxd of the driver's own
+ * on free loopback ports), with one Server-Sent-Events stream per unit open on the
  * dashboard as a browser would hold it. A load driver, not a test.
  *
  * <p>Each second T (wall clock, whole seconds) the driver steps every unit's {@link Simulator} at T
@@ -64,14 +65,14 @@ import org.steamtally.deploy.daemon.ExampleDesignPoints;
  *       latest) to the arrival: the daemon's own share.
  * </ul>
  * After the warm-up it counts, over the measurement window, results received on the streams and (after
- * the daemon stopped) stored in the embedded store against N × seconds expected, readings accepted and
+ * the daemon stopped) stored in the store against N × seconds expected, readings accepted and
  * refused from {@code /metrics}, the daemon's heap (jstat, once a second), CPU time of the daemon,
  * Mosquitto and the driver, and the machine's load. It prints one PASS or FAIL line against the targets
  * and exits 1 when a target is missed.
  *
  * <pre>
  * java -cp ... org.steamtally.deploy.bench.FleetLoadDriver [units=100] [warmup=60] [measure=300]
- *     [lateness=500ms] [heap=512m] [jar=deploy/target/steamtally.jar] [example=deploy/examples/regenerative.yaml]
+ *     [lateness=500ms] [heap=512m] [store=h2|influx] [jar=deploy/target/steamtally.jar] [example=deploy/examples/regenerative.yaml]
  *     [keep=false]
  * </pre>
  */
@@ -90,6 +91,8 @@ public final class FleetLoadDriver {
     private final String lateness;
     private final long latenessMs;
     private final Path work;
+    /** Where the daemon stores its results: {@code h2}, the embedded store, or {@code influx}, an influxd of our own. */
+    private final String store;
     private final List<Process> children = new ArrayList<>();
     private volatile boolean stopping;
 
@@ -122,6 +125,10 @@ public final class FleetLoadDriver {
             throw new IllegalArgumentException("lateness=" + lateness + ": expected whole milliseconds, e.g. 500ms");
         }
         this.latenessMs = Long.parseLong(lateness.substring(0, lateness.length() - 2));
+        this.store = opts.getOrDefault("store", "h2");
+        if (!store.equals("h2") && !store.equals("influx")) {
+            throw new IllegalArgumentException("store=" + store + ": expected h2 (the embedded store) or influx");
+        }
         this.work = Files.createTempDirectory("steamtally-fleet-");
         this.stepSecond = new long[RING][units];
         this.firstPublishMicros = new long[RING][units];
@@ -136,7 +143,8 @@ public final class FleetLoadDriver {
         for (String a : args) {
             int eq = a.indexOf('=');
             if (eq < 1) {
-                System.err.println("arguments are key=value: units, warmup, measure, lateness, heap, jar, example, keep;"
+                System.err.println("arguments are key=value: units, warmup, measure, lateness, heap, store, jar, example,"
+                        + " keep;"
                         + " got '" + a + "'");
                 System.exit(2);
             }
@@ -219,6 +227,20 @@ public final class FleetLoadDriver {
                 work.resolve("mosquitto.log"));
         waitForPort(mqttPort, Duration.ofSeconds(10), mosquitto, "Mosquitto");
 
+        // InfluxDB of our own, when asked for: the daemon then writes there, not to the embedded store
+        Process influxd = null;
+        Map<String, String> daemonEnv = Map.of();
+        if (store.equals("influx")) {
+            int influxPort = freePort();
+            influxd = start(List.of(opts.getOrDefault("influxd", "influxd"), "run", "-config",
+                    writeInfluxConfig(influxPort, freePort()).toString()), work.resolve("influxd.log"));
+            waitForPort(influxPort, Duration.ofSeconds(30), influxd, "influxd");
+            influxUrl = "http://127.0.0.1:" + influxPort;
+            daemonEnv = Map.of("STEAMTALLY_INFLUX_URL", influxUrl, "STEAMTALLY_INFLUX_DATABASE", INFLUX_DATABASE,
+                    "STEAMTALLY_INFLUX_CREATE_DATABASE", "true");
+            log("influxd pid " + influxd.pid() + " on " + influxPort + ", database " + INFLUX_DATABASE);
+        }
+
         // the daemon
         List<String> cmd = new ArrayList<>(List.of(javaBinary(), "-Xmx" + opts.getOrDefault("heap", "512m")));
         for (String extra : opts.getOrDefault("jvm", "").split(" ")) {
@@ -228,7 +250,7 @@ public final class FleetLoadDriver {
         }
         cmd.addAll(List.of("-jar", jar.toString(), "run", "--config", config.toString(),
                 "--data-dir", work.resolve("data").toString(), "--http-port", Integer.toString(httpPort)));
-        Process daemon = start(cmd, work.resolve("daemon.log"));
+        Process daemon = start(cmd, daemonEnv, work.resolve("daemon.log"));
         waitForPort(httpPort, Duration.ofSeconds(90), daemon, "the daemon");
         log("daemon pid " + daemon.pid() + " up");
         Process jstat = start(List.of("jstat", "-gc", Long.toString(daemon.pid()), "1000"), work.resolve("jstat.log"));
@@ -260,7 +282,7 @@ public final class FleetLoadDriver {
 
         // sample /proc and /metrics at the window's edges
         sleepUntilMillis(windowStart * 1000 + latenessMs + 50);
-        Sample before = sample(daemon, mosquitto, httpPort);
+        Sample before = sample(daemon, mosquitto, influxd, httpPort);
         log("warm-up over; measuring " + measure + " s");
         // a monitoring system scrapes /metrics meanwhile, as Prometheus would (scrape=0: not at all)
         int scrapeEvery = Integer.parseInt(opts.getOrDefault("scrape", "15"));
@@ -282,7 +304,7 @@ public final class FleetLoadDriver {
             sleepUntilMillis(Math.min(Math.min(nextScrape, nextLog * 1000), windowEnd * 1000));
         }
         sleepUntilMillis(windowEnd * 1000 + latenessMs + 50);
-        Sample after = sample(daemon, mosquitto, httpPort);
+        Sample after = sample(daemon, mosquitto, influxd, httpPort);
         // let the last results of the window arrive, stop publishing, then give the store time to catch up
         sleepUntilMillis(windowEnd * 1000 + latenessMs + 3000);
         stopping = true;
@@ -316,7 +338,7 @@ public final class FleetLoadDriver {
         Duration stopTook = Duration.between(stopAsked, Instant.now());
         jstat.destroy();
         jstat.waitFor(5, TimeUnit.SECONDS);
-        long[] stored = storedResults(fleet, stopped);
+        long[] stored = store.equals("influx") ? storedInInflux(fleet, template) : storedResults(fleet, stopped);
 
         return report(fleet, sensors, before, after, stored, daemonAlive, stopped, stopTook, daemon.exitValue());
     }
@@ -436,7 +458,8 @@ public final class FleetLoadDriver {
 
     // ---- measurements
 
-    private record Sample(long nanos, long daemonTicks, long mosquittoTicks, long driverCpuNanos, long machineBusy,
+    private record Sample(long nanos, long daemonTicks, long mosquittoTicks, long influxTicks, long driverCpuNanos,
+                          long machineBusy,
                           long machineTotal, String loadavg, Map<String, Double> metrics, Map<String, Long> threads) {
     }
 
@@ -461,13 +484,15 @@ public final class FleetLoadDriver {
         return out;
     }
 
-    private Sample sample(Process daemon, Process mosquitto, int httpPort) throws IOException, InterruptedException {
+    private Sample sample(Process daemon, Process mosquitto, Process influxd, int httpPort) throws IOException,
+            InterruptedException {
         long[] machine = machineTicks();
         long t0 = System.nanoTime();
         Map<String, Double> metrics = metrics(httpPort);
         log(String.format(Locale.ROOT, "/metrics: %.0f lines, %.0f kB, %.0f ms", metrics.get("scrape_lines"),
                 metrics.get("scrape_bytes") / 1000, (System.nanoTime() - t0) / 1e6));
         return new Sample(System.nanoTime(), processTicks(daemon.pid()), processTicks(mosquitto.pid()),
+                influxd == null ? 0 : processTicks(influxd.pid()),
                 ((OperatingSystemMXBean) ManagementFactory.getOperatingSystemMXBean()).getProcessCpuTime(),
                 machine[0], machine[1], Files.readString(Path.of("/proc/loadavg")).trim(), metrics,
                 threadTicks(daemon.pid()));
@@ -567,6 +592,81 @@ public final class FleetLoadDriver {
         }
     }
 
+    /** The database the daemon writes to in the driver's own influxd. */
+    private static final String INFLUX_DATABASE = "steamtally_fleet";
+    /** The driver's influxd, when {@code store=influx}. */
+    private String influxUrl;
+
+    /**
+     * A configuration for influxd 1.x with its data under the work directory, HTTP and the backup RPC
+     * on the given loopback ports, and no statistics database (it would only take CPU from the run).
+     */
+    private Path writeInfluxConfig(int httpPort, int rpcPort) throws IOException {
+        Path dir = work.resolve("influxdb");
+        for (String d : List.of("meta", "data", "wal")) {
+            Files.createDirectories(dir.resolve(d));
+        }
+        Path conf = dir.resolve("influxdb.conf");
+        Files.writeString(conf, String.join("\n",
+                "reporting-disabled = true",
+                "bind-address = \"127.0.0.1:" + rpcPort + "\"",
+                "[meta]",
+                "  dir = \"" + dir.resolve("meta") + "\"",
+                "  logging-enabled = false",
+                "[data]",
+                "  dir = \"" + dir.resolve("data") + "\"",
+                "  wal-dir = \"" + dir.resolve("wal") + "\"",
+                "  query-log-enabled = false",
+                "[monitor]",
+                "  store-enabled = false",
+                "[http]",
+                "  enabled = true",
+                "  bind-address = \"127.0.0.1:" + httpPort + "\"",
+                "  auth-enabled = false",
+                "  log-enabled = false",
+                "[logging]",
+                "  level = \"warn\"",
+                ""));
+        return conf;
+    }
+
+    /**
+     * Results per unit in the window, from the driver's influxd: the points of the unit's first state
+     * (every result has one per state), counted by unit. Null when the query fails.
+     */
+    private long[] storedInInflux(FleetPlant fleet, UnitDescription template) {
+        String state = template.states().get(0).id();
+        String q = "SELECT count(\"valid\") FROM \"" + Measurement.STATES.measurementName() + "\" WHERE \"site\" = '"
+                + fleet.site() + "' AND \"state\" = '" + state + "' AND time >= " + windowStart + "s AND time < "
+                + windowEnd + "s GROUP BY \"unit\"";
+        try {
+            HttpResponse<String> r = java.net.http.HttpClient.newHttpClient().send(HttpRequest.newBuilder(URI.create(
+                    influxUrl + "/query?db=" + INFLUX_DATABASE + "&q=" + java.net.URLEncoder.encode(q,
+                            StandardCharsets.UTF_8))).timeout(Duration.ofSeconds(60)).GET().build(),
+                    HttpResponse.BodyHandlers.ofString());
+            if (r.statusCode() != 200) {
+                log("store not read: HTTP " + r.statusCode() + " " + r.body());
+                return null;
+            }
+            long[] n = new long[units];
+            var series = new com.fasterxml.jackson.databind.ObjectMapper().readTree(r.body())
+                    .path("results").path(0).path("series");
+            for (var s : series) {
+                int u = fleet.unitIds().indexOf(s.path("tags").path("unit").asText());
+                if (u >= 0) {
+                    n[u] = s.path("values").path(0).path(1).asLong();
+                }
+            }
+            return n;
+        } catch (IOException e) {
+            log("store not read: " + e);
+            return null;
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            return null;
+        }
+    }
+
     /** Heap figures from jstat -gc: peak used (all pools), peak old generation, capacity; MB. */
     private double[] heap() throws IOException {
         double peakUsed = 0;
@@ -630,6 +730,7 @@ public final class FleetLoadDriver {
         double hz = 100; // USER_HZ on Linux
         double daemonCpu = (b.daemonTicks() - a.daemonTicks()) / hz / seconds;
         double mosquittoCpu = (b.mosquittoTicks() - a.mosquittoTicks()) / hz / seconds;
+        double influxCpu = (b.influxTicks() - a.influxTicks()) / hz / seconds;
         double driverCpu = (b.driverCpuNanos() - a.driverCpuNanos()) / 1e9 / seconds;
         double machineCpu = (double) (b.machineBusy() - a.machineBusy()) / (b.machineTotal() - a.machineTotal());
         long[] last = percentiles(fromLast);
@@ -638,8 +739,9 @@ public final class FleetLoadDriver {
 
         PrintFormat p = new PrintFormat();
         p.line("fleet benchmark: %d units × %d sensors at 1 Hz = %d messages/s offered; warm-up %d s, measured %d s;"
-                + " allowed lateness %s; daemon -Xmx%s", units, sensors, units * sensors, warmup, measure, lateness,
-                opts.getOrDefault("heap", "512m"));
+                + " allowed lateness %s; daemon -Xmx%s; store %s", units, sensors, units * sensors, warmup, measure,
+                lateness, opts.getOrDefault("heap", "512m"),
+                store.equals("influx") ? "InfluxDB (an influxd of the driver's own)" : "embedded H2");
         p.line("machine: %d cores; load average at the window's start %s, at its end %s; machine CPU busy %.0f %%",
                 Runtime.getRuntime().availableProcessors(), a.loadavg(), b.loadavg(), 100 * machineCpu);
         p.line("published in the window: %d messages (%.0f/s); late steps (started > 500 ms after their second): %d;"
@@ -669,8 +771,9 @@ public final class FleetLoadDriver {
                 scrapeMillis.size(), scrapeMillis.stream().mapToLong(Long::longValue).max().orElse(0));
         p.line("daemon heap (jstat): peak in use %.0f MB (old generation peak %.0f MB) of %.0f MB committed;"
                 + " %d collections, %.1f s in GC", heap[0], heap[1], heap[2], (long) heap[3], heap[4]);
-        p.line("CPU, share of one core: daemon %.0f %%, Mosquitto %.0f %%, driver (publisher, streams) %.0f %%",
-                100 * daemonCpu, 100 * mosquittoCpu, 100 * driverCpu);
+        p.line("CPU, share of one core: daemon %.0f %%, Mosquitto %.0f %%%s, driver (publisher, streams) %.0f %%",
+                100 * daemonCpu, 100 * mosquittoCpu, store.equals("influx")
+                        ? String.format(Locale.ROOT, ", influxd %.0f %%", 100 * influxCpu) : "", 100 * driverCpu);
         Map<String, Long> threadCpu = new LinkedHashMap<>();
         b.threads().forEach((k, v) -> threadCpu.put(k, v - a.threads().getOrDefault(k, 0L)));
         StringBuilder top = new StringBuilder();
@@ -770,12 +873,18 @@ public final class FleetLoadDriver {
     // ---- processes and time
 
     private Process start(List<String> command, Path logFile) throws IOException {
+        return start(command, Map.of(), logFile);
+    }
+
+    private Process start(List<String> command, Map<String, String> env, Path logFile) throws IOException {
         synchronized (children) {
             if (stopping && !children.isEmpty()) {
                 throw new IOException("stopping");
             }
-            Process p = new ProcessBuilder(command).redirectErrorStream(true)
-                    .redirectOutput(ProcessBuilder.Redirect.appendTo(logFile.toFile())).start();
+            ProcessBuilder b = new ProcessBuilder(command).redirectErrorStream(true)
+                    .redirectOutput(ProcessBuilder.Redirect.appendTo(logFile.toFile()));
+            b.environment().putAll(env);
+            Process p = b.start();
             children.add(p);
             return p;
         }
