@@ -15,6 +15,19 @@ class ServerSentEventsTest {
     }
 
     @Test
+    void everyLineEndTheStandardKnowsSplitsTheDataAndAnEmptyLineStaysALine() {
+        // WHATWG HTML, 9.2.5: a line ends with CRLF, a lone LF or a lone CR.
+        assertEquals("event: e\ndata: a\ndata: b\ndata: \ndata: c\ndata: \n\n",
+                ServerSentEvents.event("e", "a\rb\n\r\nc\n"));
+        assertEquals("event: e\ndata: \n\n", ServerSentEvents.event("e", ""));
+    }
+
+    @Test
+    void anEmptyEventNameIsRefused() {
+        assertThrows(IllegalArgumentException.class, () -> ServerSentEvents.event("", "z"));
+    }
+
+    @Test
     void aCommentCannotEndTheEventEarly() {
         assertEquals(": a b\n\n", ServerSentEvents.comment("a\nb"));
     }
