@@ -275,8 +275,10 @@ public final class IngestPipeline implements AutoCloseable {
     }
 
     private void deliver(int u, List<Snapshot> due) {
-        for (Snapshot s : due) {
-            slots[u].put(s);
+        // Indexed: this runs for every unit at every message, nearly always with nothing due, and an
+        // iterator over the empty list was about 4 % of the daemon's allocation at 30 units.
+        for (int i = 0; i < due.size(); i++) {
+            slots[u].put(due.get(i));
             emitted[u].increment();
         }
     }
