@@ -54,8 +54,9 @@ public final class WindowMeanEvaluator {
     private final boolean[][] good;
     /**
      * The one compiled evaluator: a compiled evaluator is large (its cycle model and
-     * reconciliation) and costs milliseconds of CPU to compile, so neither one per n_eff nor a
-     * compilation per change of n_eff is affordable for a daemon with a hundred units.
+     * reconciliation, about 65 kB) and each compilation costs CPU (0.3 to 0.7 ms warm, far more
+     * while the JIT is cold; docs/PERFORMANCE.md), so neither one per n_eff nor a compilation per
+     * change of n_eff suits a daemon with a hundred units.
      */
     private final ReconcilingEvaluator evaluator;
     /** The sensors' uncertainties of a mean of {@link #meanCount} readings, SI: kept while n_eff stays. */
