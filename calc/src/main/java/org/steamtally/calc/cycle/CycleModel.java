@@ -15,6 +15,7 @@ import org.steamtally.calc.plant.FuelMeasurement;
 import org.steamtally.calc.plant.MotorMeasurement;
 import org.steamtally.calc.plant.Quantity;
 import org.steamtally.calc.plant.Sensor;
+import org.steamtally.calc.plant.SensorUncertainties;
 import org.steamtally.calc.plant.StateDefinition;
 import org.steamtally.calc.plant.StateFix;
 import org.steamtally.calc.plant.UncertainConstant;
@@ -155,6 +156,10 @@ public final class CycleModel {
     private final double[] constantValue;
     private final double[] constantUncertainty;
     private final int inputCount;
+    /** The sensors' declared standard uncertainties, SI: what {@link #evaluate(Snapshot)} propagates. */
+    private final double[] declaredSensorUncertainty;
+    /** The sensors' standard uncertainties of the evaluation under way, SI, for the closure's u(r). */
+    private double[] sensorUncertainty;
 
     // ---------------------------------------------------------------- states
     private final int stateCount;
@@ -257,6 +262,8 @@ public final class CycleModel {
 
         sensors = unit.sensors().toArray(new Sensor[0]);
         sensorCount = sensors.length;
+        declaredSensorUncertainty = SensorUncertainties.declared(unit.sensors());
+        sensorUncertainty = declaredSensorUncertainty;
         Map<String, Integer> sensorIndex = new HashMap<>();
         for (int i = 0; i < sensorCount; i++) {
             if (sensorIndex.putIfAbsent(sensors[i].id(), i) != null) {
@@ -1136,6 +1143,26 @@ public final class CycleModel {
      *                                  number of sensors (a wiring error, not a bad value)
      */
     public UnitResult evaluate(Snapshot snapshot) {
+        return evaluateWith(snapshot, declaredSensorUncertainty);
+    }
+
+    /**
+     * Evaluates one snapshot as {@link #evaluate(Snapshot)} does, with the closure uncertainties
+     * u(r) propagated from the given sensor uncertainties instead of the declared ones (e.g. those
+     * of a mean of n readings, u/√n): the same record as a model compiled from the unit with these
+     * uncertainties would give, without compiling one. The declared constants keep theirs.
+     *
+     * @param standardUncertaintySi one standard uncertainty per sensor, SI, in declaration order,
+     *                              each positive and finite (see {@link SensorUncertainties})
+     * @throws IllegalArgumentException as {@link #evaluate(Snapshot)}, and when the uncertainties are
+     *                                  not one positive finite value per sensor
+     */
+    public UnitResult evaluate(Snapshot snapshot, double[] standardUncertaintySi) {
+        return evaluateWith(snapshot, SensorUncertainties.checked(unitId, sensors, standardUncertaintySi));
+    }
+
+    private UnitResult evaluateWith(Snapshot snapshot, double[] standardUncertaintySi) {
+        sensorUncertainty = standardUncertaintySi;
         if (!snapshot.unitId().equals(unitId)) {
             throw new IllegalArgumentException("snapshot of unit \"" + snapshot.unitId() + "\" given to the model of unit \""
                     + unitId + "\"");
@@ -1960,7 +1987,7 @@ public final class CycleModel {
     private ClosureResult closure(String id, double r) {
         double variance = 0.0;
         for (int i = 0; i < sensorCount; i++) {
-            double term = gradient[i] * sensors[i].standardUncertaintySi();
+            double term = gradient[i] * sensorUncertainty[i];
             variance += term * term;
         }
         for (int k = 0; k < constantValue.length; k++) {

@@ -21,6 +21,7 @@ import org.steamtally.calc.plant.FuelMeasurement;
 import org.steamtally.calc.plant.MotorMeasurement;
 import org.steamtally.calc.plant.Quantity;
 import org.steamtally.calc.plant.Sensor;
+import org.steamtally.calc.plant.SensorUncertainties;
 import org.steamtally.calc.plant.StateDefinition;
 import org.steamtally.calc.plant.StateFix;
 import org.steamtally.calc.plant.UncertainConstant;
@@ -167,6 +168,8 @@ public final class Reconciler {
     private final double[] constantValue;
     private final double[] constantSigma;
     private final int inputCount;
+    /** Per input, the declared standard uncertainty: the sensors', then the constants'. */
+    private final double[] declaredSigma;
 
     private final int stateCount;
     private final String[] stateId;
@@ -370,6 +373,7 @@ public final class Reconciler {
         constantValue = cValues.stream().mapToDouble(Double::doubleValue).toArray();
         constantSigma = cSigmas.stream().mapToDouble(Double::doubleValue).toArray();
         inputCount = sensorCount + constantId.length;
+        declaredSigma = inputSigma(SensorUncertainties.declared(unit.sensors()));
         rowCount = kinds.size();
         rowKind = kinds.stream().mapToInt(Integer::intValue).toArray();
         rowStates = states.toArray(new int[0][]);
@@ -537,6 +541,33 @@ public final class Reconciler {
      *                                  sensors (a wiring error, not a bad value)
      */
     public Reconciliation reconcile(Snapshot snapshot) {
+        return reconcileWith(snapshot, declaredSigma);
+    }
+
+    /**
+     * Reconciles one snapshot as {@link #reconcile(Snapshot)} does, with the given sensor
+     * uncertainties in place of the declared ones (e.g. those of a mean of n readings, u/√n): the
+     * weights, tests, χ² and reconciled uncertainties are those a reconciliation compiled from the
+     * unit with these uncertainties would give. Nothing the compilation prepares depends on the
+     * sensors' uncertainties, so no compilation is needed. The declared constants keep theirs.
+     *
+     * @param standardUncertaintySi one standard uncertainty per sensor, SI, in declaration order,
+     *                              each positive and finite (see {@link SensorUncertainties})
+     * @throws IllegalArgumentException as {@link #reconcile(Snapshot)}, and when the uncertainties
+     *                                  are not one positive finite value per sensor
+     */
+    public Reconciliation reconcile(Snapshot snapshot, double[] standardUncertaintySi) {
+        return reconcileWith(snapshot, inputSigma(SensorUncertainties.checked(unitId, sensors, standardUncertaintySi)));
+    }
+
+    /** Per input, the standard uncertainty: the sensors' as given, then the declared constants'. */
+    private double[] inputSigma(double[] sensorSigma) {
+        double[] sigma = Arrays.copyOf(sensorSigma, inputCount);
+        System.arraycopy(constantSigma, 0, sigma, sensorCount, constantSigma.length);
+        return sigma;
+    }
+
+    private Reconciliation reconcileWith(Snapshot snapshot, double[] sigma) {
         if (!snapshot.unitId().equals(unitId)) {
             throw new IllegalArgumentException("snapshot of unit \"" + snapshot.unitId()
                     + "\" given to the reconciliation of unit \"" + unitId + "\"");
@@ -558,7 +589,7 @@ public final class Reconciler {
             usable[sensorCount + k] = true;
         }
         boolean[] removed = new boolean[inputCount];
-        Solution base = solve(measured, usable, removed, null);
+        Solution base = solve(measured, usable, removed, null, sigma);
 
         List<Suspect> suspects = new ArrayList<>();
         boolean[] suspect = new boolean[inputCount];
@@ -574,7 +605,7 @@ public final class Reconciler {
                 List<Integer> set = new ArrayList<>(current.equivalents(candidate));
                 candidate = set.get(0);
                 removed[candidate] = true;
-                Solution next = solve(measured, usable, removed, base);
+                Solution next = solve(measured, usable, removed, base, sigma);
                 // The balances cannot order the members of a set to first order, but a gross error
                 // that takes a state out of its region can: removing the wrong member then leaves
                 // a fit that does not converge or fits far worse. Name the member whose removal fits
@@ -583,7 +614,7 @@ public final class Reconciler {
                     int other = set.get(k);
                     removed[candidate] = false;
                     removed[other] = true;
-                    Solution alternative = solve(measured, usable, removed, base);
+                    Solution alternative = solve(measured, usable, removed, base, sigma);
                     if (fitsBetter(alternative, next)) {
                         candidate = other;
                         next = alternative;
@@ -599,7 +630,7 @@ public final class Reconciler {
                 if (next.converged && next.observable(candidate)) {
                     bias = OptionalDouble.of(measured[candidate] - next.value[candidate]);
                     double s = next.unknownSigma(candidate);
-                    sigmaBias = OptionalDouble.of(Math.sqrt(sigma(candidate) * sigma(candidate) + s * s));
+                    sigmaBias = OptionalDouble.of(Math.sqrt(sigma[candidate] * sigma[candidate] + s * s));
                 }
                 boolean confirmed = next.status.equals(ReconciliationResult.PASSED);
                 List<String> ids = new ArrayList<>();
@@ -656,10 +687,6 @@ public final class Reconciler {
         return q < sensorCount ? sensors[q].id() : constantId[q - sensorCount];
     }
 
-    private double sigma(int q) {
-        return q < sensorCount ? sensors[q].standardUncertaintySi() : constantSigma[q - sensorCount];
-    }
-
     private String inputUnit(int q) {
         if (q < sensorCount) {
             return sensors[q].quantity().siUnit();
@@ -675,7 +702,7 @@ public final class Reconciler {
             if (isSensor ? !inModel[q] : constantSigma[q - sensorCount] == 0.0) {
                 continue;
             }
-            OptionalDouble u = OptionalDouble.of(sigma(q));
+            OptionalDouble u = OptionalDouble.of(s.sigma[q]);
             if (!usable[q]) {
                 list.add(new ReconciledSensor(inputId(q), "sensor", inputUnit(q), OptionalDouble.empty(), u,
                         OptionalDouble.empty(), OptionalDouble.empty(), OptionalDouble.empty(), "excluded", false));
@@ -685,7 +712,7 @@ public final class Reconciler {
             list.add(new ReconciledSensor(inputId(q), isSensor ? "sensor" : "constant", inputUnit(q),
                     OptionalDouble.of(measured[q]), u,
                     s.converged ? OptionalDouble.of(s.value[q]) : OptionalDouble.empty(),
-                    s.converged ? OptionalDouble.of(sigma(q) * Math.sqrt(Math.max(0.0, 1.0 - s.projection[q])))
+                    s.converged ? OptionalDouble.of(s.sigma[q] * Math.sqrt(Math.max(0.0, 1.0 - s.projection[q])))
                             : OptionalDouble.empty(),
                     redundant ? OptionalDouble.of(s.test[q]) : OptionalDouble.empty(),
                     redundant ? "redundant" : "just_determined", suspect[q]));
@@ -716,6 +743,8 @@ public final class Reconciler {
         final double[] value;
         final int[] flowVar;
         final boolean[] activeRow;
+        /** Per input, the standard uncertainty this reconciliation weights and tests with. */
+        final double[] sigma;
         int[] measuredAt;
         int[] unknownAt;
         int[] measured;
@@ -734,7 +763,8 @@ public final class Reconciler {
         boolean[] observableUnknown;
         double[] sigmaUnknown;
 
-        Solution(int size) {
+        Solution(int size, double[] sigma) {
+            this.sigma = sigma;
             role = new int[size];
             value = new double[size];
             flowVar = new int[stateCount];
@@ -794,10 +824,12 @@ public final class Reconciler {
      * @param start a converged fit of the same snapshot whose estimates the unknowns start from (a
      *              serial-elimination re-solve starts next to the answer and needs fewer
      *              linearisations); null to start from the measured values and plain guesses
+     * @param sigma per input, the standard uncertainty to weight and test with
      */
-    private Solution solve(double[] measuredValues, boolean[] usable, boolean[] removed, Solution start) {
+    private Solution solve(double[] measuredValues, boolean[] usable, boolean[] removed, Solution start,
+                           double[] sigma) {
         int size = inputCount + 2 * stateCount;
-        Solution s = new Solution(size);
+        Solution s = new Solution(size, sigma);
         for (int q = 0; q < inputCount; q++) {
             s.value[q] = measuredValues[q];
             if (q >= sensorCount && constantSigma[q - sensorCount] == 0.0) {
@@ -963,7 +995,7 @@ public final class Reconciler {
             if (rowKind[r] == ROW_SAME) {
                 int p = rowInputs[r][0];
                 int q = rowInputs[r][1];
-                double scale = 1.0 / Math.hypot(sigma(p), sigma(q));
+                double scale = 1.0 / Math.hypot(s.sigma[p], s.sigma[q]);
                 d[p] += scale;
                 d[q] -= scale;
                 f[row++] = scale * (s.value[p] - s.value[q]);
@@ -1063,7 +1095,7 @@ public final class Reconciler {
         double[] dhdT = new double[stateCount];
         double[] sigma = new double[nm];
         for (int a = 0; a < nm; a++) {
-            sigma[a] = sigma(s.measured[a]);
+            sigma[a] = s.sigma[s.measured[a]];
         }
         double[] colScale = new double[nu];
         double[][] bHat = new double[nc][nu];

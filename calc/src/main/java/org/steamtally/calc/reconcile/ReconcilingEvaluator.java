@@ -6,6 +6,7 @@ import org.steamtally.calc.cycle.CycleModel;
 import org.steamtally.calc.cycle.MetricsBasis;
 import org.steamtally.calc.cycle.Snapshot;
 import org.steamtally.calc.cycle.UnitResult;
+import org.steamtally.calc.plant.SensorUncertainties;
 import org.steamtally.calc.plant.UnitDescription;
 
 /**
@@ -54,8 +55,29 @@ public final class ReconcilingEvaluator {
 
     /** The full result record of one snapshot; never throws for bad sensor values. */
     public UnitResult evaluate(Snapshot snapshot) {
-        UnitResult raw = model.evaluate(snapshot);
-        Reconciliation reconciliation = reconciler.reconcile(snapshot);
+        return evaluate(snapshot, model.evaluate(snapshot), reconciler.reconcile(snapshot), null);
+    }
+
+    /**
+     * The full result record of one snapshot whose sensors have the given standard uncertainties
+     * instead of the declared ones (the mean of n readings has u/√n): the record an evaluator
+     * compiled from the unit with these uncertainties would give, from this one compilation. The
+     * closure checks and the reconciliation weigh and test with them; the declared constants keep
+     * theirs. Never throws for bad sensor values.
+     *
+     * @param standardUncertaintySi one standard uncertainty per sensor, SI, in declaration order,
+     *                              each positive and finite (see {@link SensorUncertainties})
+     * @throws IllegalArgumentException when the uncertainties are not one positive finite value per sensor
+     */
+    public UnitResult evaluate(Snapshot snapshot, double[] standardUncertaintySi) {
+        UnitResult raw = model.evaluate(snapshot, standardUncertaintySi);
+        Reconciliation reconciliation = reconciler.reconcile(snapshot, standardUncertaintySi);
+        return evaluate(snapshot, raw, reconciliation, standardUncertaintySi);
+    }
+
+    /** @param standardUncertaintySi the sensors' uncertainties, or null for the declared ones */
+    private UnitResult evaluate(Snapshot snapshot, UnitResult raw, Reconciliation reconciliation,
+                                double[] standardUncertaintySi) {
         MetricsBasis basis = MetricsBasis.RAW;
         UnitResult chosen = raw;
         double[] values = reconciliation.reconciledValues().orElse(null);
@@ -68,8 +90,10 @@ public final class ReconcilingEvaluator {
             }
         }
         if (values != null) {
-            chosen = model.evaluate(new Snapshot(snapshot.timestamp(), snapshot.unitId(), values,
-                    snapshot.status().clone()));
+            Snapshot basisSnapshot = new Snapshot(snapshot.timestamp(), snapshot.unitId(), values,
+                    snapshot.status().clone());
+            chosen = standardUncertaintySi == null ? model.evaluate(basisSnapshot)
+                    : model.evaluate(basisSnapshot, standardUncertaintySi);
         }
         return new UnitResult(raw.timestamp(), raw.site(), raw.unit(), chosen.states(), chosen.components(),
                 chosen.cycle(), raw.closure(), reconciliation.result(), basis, raw.cycle());

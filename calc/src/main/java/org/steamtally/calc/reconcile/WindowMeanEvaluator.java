@@ -3,9 +3,11 @@ package org.steamtally.calc.reconcile;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
+import java.util.function.BiFunction;
 import org.steamtally.calc.cycle.Snapshot;
 import org.steamtally.calc.cycle.UnitResult;
 import org.steamtally.calc.plant.Sensor;
+import org.steamtally.calc.plant.SensorUncertainties;
 import org.steamtally.calc.plant.UnitDescription;
 
 /**
@@ -39,35 +41,37 @@ import org.steamtally.calc.plant.UnitDescription;
  * smallest count of good values over the sensors that have any, so a sensor that dropped out for a
  * while makes the uncertainties of all a little wider than they need be, never narrower.
  *
- * <p>Compiled evaluators are kept for the full window and for the last other n_eff met, compiled on
- * first use. Not thread-safe: one instance per unit and thread.
+ * <p>One evaluator is compiled per window, with the declared uncertainties; each mean is evaluated
+ * with the sensors' uncertainties divided by √n_eff handed over at evaluation time, so a window that
+ * fills after a start or a sensor that drops out costs no compilation, and the window holds one
+ * compiled model whatever n_eff it meets. Not thread-safe: one instance per unit and thread.
  */
 public final class WindowMeanEvaluator {
 
-    private final String siteId;
     private final UnitDescription unit;
     private final int window;
     private final double[][] values;
     private final boolean[][] good;
     /**
-     * The evaluator of a full window, and of the last other n_eff met. Only these two are kept: a
-     * compiled evaluator is large (its cycle model and reconciliation), and a daemon with a hundred
-     * units that kept one per n_eff would hold thousands of them; a window that fills or a sensor
-     * that drops out compiles a few more, once per change of n_eff.
+     * The one compiled evaluator: a compiled evaluator is large (its cycle model and
+     * reconciliation, about 65 kB) and each compilation costs CPU (0.3 to 0.7 ms warm, far more
+     * while the JIT is cold; docs/PERFORMANCE.md), so neither one per n_eff nor a compilation per
+     * change of n_eff suits a daemon with a hundred units.
      */
-    private ReconcilingEvaluator full;
-    private ReconcilingEvaluator partial;
-    private int partialCount;
+    private final ReconcilingEvaluator evaluator;
+    /** The sensors' uncertainties of a mean of {@link #meanCount} readings, SI: kept while n_eff stays. */
+    private double[] meanUncertaintySi;
+    private int meanCount;
     private int next;
     private int held;
 
-    private WindowMeanEvaluator(String siteId, UnitDescription unit, int window) {
-        this.siteId = siteId;
+    private WindowMeanEvaluator(UnitDescription unit, int window, ReconcilingEvaluator evaluator) {
         this.unit = unit;
         this.window = window;
         int sensors = unit.sensors().size();
         this.values = new double[window][sensors];
         this.good = new boolean[window][sensors];
+        this.evaluator = evaluator;
     }
 
     /**
@@ -76,14 +80,22 @@ public final class WindowMeanEvaluator {
      * @throws org.steamtally.calc.cycle.CycleModelException when the cycle model rejects the unit
      */
     public static WindowMeanEvaluator compile(String siteId, UnitDescription unit, int windowLength) {
+        return compile(siteId, unit, windowLength, ReconcilingEvaluator::compile);
+    }
+
+    /**
+     * As {@link #compile(String, UnitDescription, int)}, with the evaluator compiled by
+     * {@code compiler}: a test hands in one that counts its calls, to see that the window compiles
+     * once whatever n_eff it meets.
+     */
+    static WindowMeanEvaluator compile(String siteId, UnitDescription unit, int windowLength,
+                                       BiFunction<String, UnitDescription, ReconcilingEvaluator> compiler) {
         Objects.requireNonNull(siteId, "siteId");
         Objects.requireNonNull(unit, "unit");
         if (windowLength < 1) {
             throw new IllegalArgumentException("window length must be at least 1 snapshot, was " + windowLength);
         }
-        WindowMeanEvaluator e = new WindowMeanEvaluator(siteId, unit, windowLength);
-        e.evaluatorFor(windowLength);
-        return e;
+        return new WindowMeanEvaluator(unit, windowLength, compiler.apply(siteId, unit));
     }
 
     /** The number of snapshots averaged once the window is full. */
@@ -137,7 +149,8 @@ public final class WindowMeanEvaluator {
         if (nEff == Integer.MAX_VALUE) {
             nEff = 1;
         }
-        return evaluatorFor(nEff).evaluate(new Snapshot(snapshot.timestamp(), snapshot.unitId(), mean, status));
+        return evaluator.evaluate(new Snapshot(snapshot.timestamp(), snapshot.unitId(), mean, status),
+                uncertaintiesOfMean(nEff));
     }
 
     /** Forgets every snapshot, e.g. after a gap in the data or a change of load. */
@@ -146,21 +159,20 @@ public final class WindowMeanEvaluator {
         next = 0;
     }
 
-    private ReconcilingEvaluator evaluatorFor(int count) {
-        if (count == window) {
-            if (full == null) {
-                full = ReconcilingEvaluator.compile(siteId, meanUncertainties(unit, count));
-            }
-            return full;
+    /** Every sensor's standard uncertainty divided by √count, SI, as {@link #meanUncertainties} holds them. */
+    private double[] uncertaintiesOfMean(int count) {
+        if (meanUncertaintySi == null || meanCount != count) {
+            meanUncertaintySi = SensorUncertainties.scaled(unit.sensors(), 1.0 / Math.sqrt(count));
+            meanCount = count;
         }
-        if (partial == null || partialCount != count) {
-            partial = ReconcilingEvaluator.compile(siteId, meanUncertainties(unit, count));
-            partialCount = count;
-        }
-        return partial;
+        return meanUncertaintySi;
     }
 
-    /** The unit with every sensor's standard uncertainty divided by √count: that of a mean of count readings. */
+    /**
+     * The unit with every sensor's standard uncertainty divided by √count: that of a mean of count
+     * readings. A unit compiled from this is what the window's one evaluator stands for at n_eff =
+     * count; tests compare the two.
+     */
     static UnitDescription meanUncertainties(UnitDescription unit, int count) {
         double scale = 1.0 / Math.sqrt(count);
         List<Sensor> sensors = new ArrayList<>(unit.sensors().size());

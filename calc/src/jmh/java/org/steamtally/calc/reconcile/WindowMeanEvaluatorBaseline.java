@@ -1,0 +1,178 @@
+package org.steamtally.calc.reconcile;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Objects;
+import org.steamtally.calc.cycle.Snapshot;
+import org.steamtally.calc.cycle.UnitResult;
+import org.steamtally.calc.plant.Sensor;
+import org.steamtally.calc.plant.UnitDescription;
+
+/**
+ * The window channel as it was at commit 7f930de, compiling an evaluator with the uncertainties
+ * divided by √n_eff whenever n_eff changed: kept unchanged, but for its name, as the side-by-side
+ * reference of {@link WindowStartCpuTime}. Its documentation below is that of
+ * {@link WindowMeanEvaluator} then.
+ *
+ * <p>The full result record of the mean of the last {@code n} snapshots: each sensor's good values in
+ * the window are averaged, and the mean is reconciled and checked with the sensor's standard
+ * uncertainty divided by √n_eff, the standard uncertainty of a mean of n_eff independent readings
+ * (GUM, JCGM 100:2008, 4.2.3). Reconciling mean values over a steady period is how VDI 2048-1 treats
+ * acceptance measurements; here the period slides by one snapshot.
+ *
+ * <p>Why: a gross error of a few σ is hard to see in one snapshot. Its individual test value in a
+ * single reconciliation is k·ρ, with ρ = σ(v)/u ≤ 1 the share of the sensor's uncertainty the
+ * balances can check, so a 3σ bias on a sensor with ρ = 0.4 has a mean test value of 1.2 and passes
+ * most snapshots. The window mean shrinks the random part by √n and leaves the bias, so after a full
+ * window the test value's mean is k·ρ·√n (3 · 0.4 · √50 ≈ 8.5).
+ *
+ * <p>What it assumes, and what to keep in mind:
+ * <ul>
+ *   <li>The readings' errors are independent from one snapshot to the next (white noise). A
+ *       declared uncertainty that is mostly systematic (calibration) does not shrink with averaging;
+ *       for such a sensor the √n is too optimistic and the window's tests will reject a plant that
+ *       is fine. The simulator's noise is white, so the figures in docs/DETECTION.md hold for it.</li>
+ *   <li>The plant is steady over the window: on a load ramp the mean of the readings is not a state
+ *       the balances describe exactly (the model is nonlinear).</li>
+ *   <li>Successive window means share n − 1 readings and are strongly correlated, so the 95 %
+ *       level of the per-snapshot tests does not give 5 % of snapshots as false alarms per window;
+ *       the alarm limits for window-mean results are set higher (see docs/DETECTION.md).</li>
+ *   <li>Declared constants (efficiencies, heating values) keep their uncertainty: they are not
+ *       read again every second.</li>
+ * </ul>
+ * A sensor with no good value in the window keeps the snapshot's own value and status. n_eff is the
+ * smallest count of good values over the sensors that have any, so a sensor that dropped out for a
+ * while makes the uncertainties of all a little wider than they need be, never narrower.
+ *
+ * <p>Compiled evaluators are kept for the full window and for the last other n_eff met, compiled on
+ * first use. Not thread-safe: one instance per unit and thread.
+ */
+final class WindowMeanEvaluatorBaseline {
+
+    private final String siteId;
+    private final UnitDescription unit;
+    private final int window;
+    private final double[][] values;
+    private final boolean[][] good;
+    /**
+     * The evaluator of a full window, and of the last other n_eff met. Only these two are kept: a
+     * compiled evaluator is large (its cycle model and reconciliation), and a daemon with a hundred
+     * units that kept one per n_eff would hold thousands of them; a window that fills or a sensor
+     * that drops out compiles a few more, once per change of n_eff.
+     */
+    private ReconcilingEvaluator full;
+    private ReconcilingEvaluator partial;
+    private int partialCount;
+    private int next;
+    private int held;
+
+    private WindowMeanEvaluatorBaseline(String siteId, UnitDescription unit, int window) {
+        this.siteId = siteId;
+        this.unit = unit;
+        this.window = window;
+        int sensors = unit.sensors().size();
+        this.values = new double[window][sensors];
+        this.good = new boolean[window][sensors];
+    }
+
+    /**
+     * @param windowLength the number of snapshots averaged, ≥ 1 (1 is the ordinary per-snapshot evaluation)
+     * @throws IllegalArgumentException when the window length is below 1
+     * @throws org.steamtally.calc.cycle.CycleModelException when the cycle model rejects the unit
+     */
+    public static WindowMeanEvaluatorBaseline compile(String siteId, UnitDescription unit, int windowLength) {
+        Objects.requireNonNull(siteId, "siteId");
+        Objects.requireNonNull(unit, "unit");
+        if (windowLength < 1) {
+            throw new IllegalArgumentException("window length must be at least 1 snapshot, was " + windowLength);
+        }
+        WindowMeanEvaluatorBaseline e = new WindowMeanEvaluatorBaseline(siteId, unit, windowLength);
+        e.evaluatorFor(windowLength);
+        return e;
+    }
+
+    /** The number of snapshots averaged once the window is full. */
+    public int windowLength() {
+        return window;
+    }
+
+    /** The snapshots the window holds now: up to the window length, fewer while it fills after a start or {@link #clear()}. */
+    public int samples() {
+        return held;
+    }
+
+    /**
+     * Takes the snapshot into the window and returns the result record of the window's mean, time
+     * stamped with this snapshot's time; never throws for bad sensor values.
+     *
+     * @throws IllegalArgumentException when the snapshot is of another unit or has not one value per sensor
+     */
+    public UnitResult evaluate(Snapshot snapshot) {
+        int sensors = unit.sensors().size();
+        if (!snapshot.unitId().equals(unit.id()) || snapshot.valuesSi().length != sensors) {
+            throw new IllegalArgumentException("window of unit " + unit.id() + " (" + sensors
+                    + " sensors) was given a snapshot of unit " + snapshot.unitId() + " with "
+                    + snapshot.valuesSi().length + " values");
+        }
+        for (int i = 0; i < sensors; i++) {
+            double v = snapshot.valuesSi()[i];
+            good[next][i] = snapshot.status()[i] == Snapshot.SensorStatus.GOOD && Double.isFinite(v);
+            values[next][i] = v;
+        }
+        next = (next + 1) % window;
+        held = Math.min(held + 1, window);
+        double[] mean = snapshot.valuesSi().clone();
+        Snapshot.SensorStatus[] status = snapshot.status().clone();
+        int nEff = Integer.MAX_VALUE;
+        for (int i = 0; i < sensors; i++) {
+            double sum = 0.0;
+            int count = 0;
+            for (int w = 0; w < held; w++) {
+                if (good[w][i]) {
+                    sum += values[w][i];
+                    count++;
+                }
+            }
+            if (count > 0) {
+                mean[i] = sum / count;
+                status[i] = Snapshot.SensorStatus.GOOD;
+                nEff = Math.min(nEff, count);
+            }
+        }
+        if (nEff == Integer.MAX_VALUE) {
+            nEff = 1;
+        }
+        return evaluatorFor(nEff).evaluate(new Snapshot(snapshot.timestamp(), snapshot.unitId(), mean, status));
+    }
+
+    /** Forgets every snapshot, e.g. after a gap in the data or a change of load. */
+    public void clear() {
+        held = 0;
+        next = 0;
+    }
+
+    private ReconcilingEvaluator evaluatorFor(int count) {
+        if (count == window) {
+            if (full == null) {
+                full = ReconcilingEvaluator.compile(siteId, meanUncertainties(unit, count));
+            }
+            return full;
+        }
+        if (partial == null || partialCount != count) {
+            partial = ReconcilingEvaluator.compile(siteId, meanUncertainties(unit, count));
+            partialCount = count;
+        }
+        return partial;
+    }
+
+    /** The unit with every sensor's standard uncertainty divided by √count: that of a mean of count readings. */
+    static UnitDescription meanUncertainties(UnitDescription unit, int count) {
+        double scale = 1.0 / Math.sqrt(count);
+        List<Sensor> sensors = new ArrayList<>(unit.sensors().size());
+        for (Sensor s : unit.sensors()) {
+            sensors.add(s.withStandardUncertaintySi(s.standardUncertaintySi() * scale));
+        }
+        return new UnitDescription(unit.id(), unit.name(), sensors, unit.states(), unit.components(),
+                unit.deadState());
+    }
+}
