@@ -11,8 +11,8 @@ import org.steamtally.calc.cycle.Snapshot;
  * {@link ReconciliationBenchmark} measures) beside that of the 50-snapshot window mean
  * ({@link WindowMeanEvaluator#evaluate}: averaging plus a full evaluation of the mean), on the
  * snapshots of {@link ReconciliationBenchmark}; and, once, the cost of a start: compiling the window
- * (one evaluator) and filling it ({@link WindowStartCpuTime} compares that with the window that
- * compiled one evaluator per sample count met). CPU time, since wall
+ * (one evaluator) and filling it (docs/PERFORMANCE.md compares that with the window that compiled
+ * one evaluator per sample count met). CPU time, since wall
  * clock on a shared machine measures the scheduler too. Ten rounds of 2000 calls, the first five as
  * warm-up.
  *
