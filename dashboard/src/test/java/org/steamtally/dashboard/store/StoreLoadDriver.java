@@ -44,9 +44,10 @@ import org.steamtally.calc.cycle.UnitResult;
 public final class StoreLoadDriver {
 
     private static final int STATES = 20;
-    private static final int COMPONENTS = 8;
-    private static final int CLOSURES = 6;
-    private static final int SENSORS = 36;
+    /** The counts below can be set to the fleet's mix: -Dload.components=12 -Dload.closures=5 -Dload.sensors=57. */
+    private static final int COMPONENTS = Integer.getInteger("load.components", 8);
+    private static final int CLOSURES = Integer.getInteger("load.closures", 6);
+    private static final int SENSORS = Integer.getInteger("load.sensors", 36);
     private static final Instant START = Instant.parse("2026-11-02T05:00:00Z");
 
     /** Process CPU per point of the last {@link #run}, µs. */
