@@ -28,9 +28,11 @@ import org.steamtally.dashboard.store.Measurement.Field;
  * The embedded store: an H2 database in file mode under a data directory, one table per measurement
  * with the same names as the InfluxDB schema (docs/STORE.md): columns {@code site, unit}, the id tag
  * (except {@code cycle}), {@code ts} (BIGINT, ms since the epoch) and one nullable column per field.
- * The primary key is (site, unit, id, ts), the point's identity, and writes are {@code MERGE}s, so
- * writing a point again replaces it. Per-minute rollups of {@code cycle} and {@code closure}
- * ({@link H2Rollup}), kept in step in each write's transaction, answer the shift summary's whole minutes.
+ * The primary key is (site, unit, id, ts), the point's identity ({@link #pkColumns} for its column
+ * order), and a batch that repeats a stored point is written again as {@code MERGE}s, so writing a
+ * point again replaces it. Per-minute rollups of {@code cycle} and {@code closure} ({@link H2Rollup})
+ * and the table of suspect sensors ({@link H2Suspects}), kept in step in each write's transaction,
+ * answer the shift summary's whole minutes and its suspect list.
  *
  * <p>Points older than the retention period are deleted by {@link #purgeExpired()}, which runs at
  * opening and then on a fixed schedule; "now" comes from the injected clock. H2 commits each write
@@ -375,6 +377,7 @@ public final class H2Store implements StoreBackend {
                 // After the raw rows: a crash in between leaves rollup minutes before the cut-off
                 // until the purge at the next opening removes them.
                 H2Rollup.purge(writeConnection, cutoff);
+                // Likewise: suspect rows whose raw rows are gone are removed by the next purge.
                 H2Suspects.purge(writeConnection, cutoff);
             } catch (SQLException e) {
                 throw new StoreQueryException("embedded store purge failed: " + e.getMessage(), e);
