@@ -56,7 +56,7 @@ class H2SuspectsTest {
         }
     }
 
-    private static List<SuspectSensor> rawSuspects(Connection c, Instant from, Instant to) throws SQLException {
+    static List<SuspectSensor> rawSuspects(Connection c, Instant from, Instant to) throws SQLException {
         try (var ps = c.prepareStatement(RAW_SUSPECTS)) {
             ps.setString(1, SITE);
             ps.setString(2, UNIT);
