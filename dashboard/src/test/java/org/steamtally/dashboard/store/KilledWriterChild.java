@@ -45,6 +45,9 @@ public final class KilledWriterChild {
         for (int k = 0; ; k++) {
             var record = StoreFixtures.record(StoreFixtures.T0.plusSeconds(k), k);
             embedded.writeResult(record);
+            // Only into the database: its suspect table must agree with its raw rows after the kill.
+            embedded.writeReconciliation(StoreFixtures.reconciliation(StoreFixtures.T0.plusSeconds(k), k % 3 == 0,
+                    2.0 + k % 5, k % 4 == 0, 3.0 + k % 7));
             spooled.writeResult(record);
             if (k % BLOCK == BLOCK - 1) {
                 if (!embedded.flush(Duration.ofSeconds(30)) || !spooled.flush(Duration.ofSeconds(30))) {

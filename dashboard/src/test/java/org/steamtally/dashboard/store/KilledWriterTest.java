@@ -11,8 +11,11 @@ import java.io.BufferedReader;
 import java.io.InputStreamReader;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
+import java.sql.Connection;
+import java.sql.DriverManager;
 import java.time.Clock;
 import java.time.Duration;
+import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.TimeUnit;
@@ -74,6 +77,15 @@ class KilledWriterTest {
             for (int k = 0; k <= safe; k++) {
                 assertEquals(T0.plusSeconds(k).toEpochMilli(), cycle.get(k).timestampMs());
             }
+            // The suspect table, written in the same transactions, agrees with the raw rows.
+            Instant end = T0.plusSeconds(safe + 3600);
+            List<SuspectSensor> suspects = store.suspects(SITE, UNIT, T0, end);
+            try (Connection c = DriverManager.getConnection("jdbc:h2:file:"
+                    + h2.toAbsolutePath().resolve("steamtally") + ";DB_CLOSE_ON_EXIT=FALSE", "sa", "")) {
+                assertEquals(H2SuspectsTest.rawSuspects(c, T0, end), suspects);
+            }
+            assertTrue(suspects.stream().mapToLong(SuspectSensor::suspectCount).sum() > safe / 3,
+                    "suspects of records 0.." + safe + " listed: " + suspects);
             store.write(ResultPoints.of(StoreFixtures.record(T0.minusSeconds(1), 0)));
             assertEquals(1, store.points(Measurement.CYCLE, SITE, UNIT, T0.minusSeconds(1), T0).size(),
                     "the reopened database takes writes");

@@ -44,10 +44,14 @@ import org.steamtally.calc.cycle.UnitResult;
 public final class StoreLoadDriver {
 
     private static final int STATES = 20;
-    private static final int COMPONENTS = 8;
-    private static final int CLOSURES = 6;
-    private static final int SENSORS = 36;
+    /** The counts below can be set to the fleet's mix: -Dload.components=12 -Dload.closures=5 -Dload.sensors=57. */
+    private static final int COMPONENTS = Integer.getInteger("load.components", 8);
+    private static final int CLOSURES = Integer.getInteger("load.closures", 6);
+    private static final int SENSORS = Integer.getInteger("load.sensors", 36);
     private static final Instant START = Instant.parse("2026-11-02T05:00:00Z");
+
+    /** Process CPU per point of the last {@link #run}, µs. */
+    private static double lastCpuMicrosPerPoint;
 
     private StoreLoadDriver() {
     }
@@ -114,6 +118,7 @@ public final class StoreLoadDriver {
                     Integer.parseInt(args[3]), Arrays.stream(args, 4, args.length).mapToInt(Integer::parseInt).toArray());
             case "shift" -> shift(args.length > 1 ? Path.of(args[1]) : null,
                     args.length > 2 ? Integer.parseInt(args[2]) : 3, args.length > 3 && args[3].equals("rollup"));
+            case "trend" -> trend(Path.of(args[1]), Integer.parseInt(args[2]));
             default -> throw new IllegalArgumentException("usage: h2 UNITS SECONDS | influxdb URL UNITS SECONDS"
                     + " | shift; got " + Arrays.toString(args));
         }
@@ -126,8 +131,10 @@ public final class StoreLoadDriver {
      */
     private static void batches(int units, int seconds, int rounds, int[] sizes) throws Exception {
         List<List<Double>> rates = new ArrayList<>();
+        List<List<Double>> cpus = new ArrayList<>();
         for (int b = 0; b < sizes.length; b++) {
             rates.add(new ArrayList<>());
+            cpus.add(new ArrayList<>());
         }
         for (int r = 0; r < rounds; r++) {
             for (int i = 0; i < sizes.length; i++) {
@@ -137,7 +144,9 @@ public final class StoreLoadDriver {
                 double rate = run(H2Store.open(dir.resolve("data"), Duration.ofDays(3650), Duration.ofHours(1),
                         Clock.systemUTC()), dir, units, seconds, sizes[b], true);
                 rates.get(b).add(rate);
-                System.out.printf("round %d, batch %d: %.0f points/s%n", r + 1, sizes[b], rate);
+                cpus.get(b).add(lastCpuMicrosPerPoint);
+                System.out.printf("round %d, batch %d: %.0f points/s, %.1f µs CPU per point%n", r + 1, sizes[b], rate,
+                        lastCpuMicrosPerPoint);
             }
         }
         for (int b = 0; b < sizes.length; b++) {
@@ -145,6 +154,10 @@ public final class StoreLoadDriver {
             System.out.printf("batch %d: median %.0f points/s over %d rounds (min %.0f, max %.0f)%n", sizes[b],
                     v.length % 2 == 1 ? v[v.length / 2] : (v[v.length / 2 - 1] + v[v.length / 2]) / 2, v.length,
                     v[0], v[v.length - 1]);
+            double[] c = cpus.get(b).stream().mapToDouble(Double::doubleValue).sorted().toArray();
+            System.out.printf("batch %d: median %.1f µs CPU per point (min %.1f, max %.1f)%n", sizes[b],
+                    c.length % 2 == 1 ? c[c.length / 2] : (c[c.length / 2 - 1] + c[c.length / 2]) / 2, c[0],
+                    c[c.length - 1]);
         }
     }
 
@@ -182,6 +195,11 @@ public final class StoreLoadDriver {
                 store.flush(Duration.ofMinutes(5));
             }
             store.awaitDrained(Duration.ofMinutes(5));
+            // CPU of the whole process (writer, H2's serialisation thread, this producer), as that is
+            // what the rest of a daemon would miss.
+            com.sun.management.OperatingSystemMXBean os = (com.sun.management.OperatingSystemMXBean)
+                    java.lang.management.ManagementFactory.getOperatingSystemMXBean();
+            long cpu0 = os.getProcessCpuTime();
             long t0 = System.nanoTime();
             for (int k = 0; k < seconds; k++) {
                 for (int u = 0; u < units; u++) {
@@ -199,11 +217,13 @@ public final class StoreLoadDriver {
                 throw new IllegalStateException("store did not drain");
             }
             double s = (System.nanoTime() - t0) / 1e9;
+            double cpuS = (os.getProcessCpuTime() - cpu0) / 1e9;
             long points = (long) units * seconds * perRecord;
+            lastCpuMicrosPerPoint = cpuS * 1e6 / points;
             System.out.printf("%s: %d units x %d s x %d points = %d points in %.2f s: %.0f points/s, %.0f records/s"
-                    + " (1 Hz per unit needs %d points/s), spooled %d%n", backend.name(), units, seconds,
-                    perRecord, points, s, points / s, units * (double) seconds / s, units * perRecord,
-                    store.spooledPoints());
+                    + " (1 Hz per unit needs %d points/s), spooled %d; process CPU %.2f s, %.1f µs per point%n",
+                    backend.name(), units, seconds, perRecord, points, s, points / s, units * (double) seconds / s,
+                    units * perRecord, store.spooledPoints(), cpuS, lastCpuMicrosPerPoint);
             return points / s;
         }
     }
@@ -230,6 +250,34 @@ public final class StoreLoadDriver {
         System.out.printf("medians over %d rounds, ms: first after reopening raw %.1f, rollup %.1f;"
                 + " warm median raw %.1f, rollup %.1f%n", rounds, median(raw, 0), median(rollup, 0),
                 median(raw, 2), median(rollup, 2));
+    }
+
+    /**
+     * Trends read per series (a sensor's reconciled and measured values, a check's residual), each
+     * over 8 hours in 1-minute buckets, from the data of {@code shift} in DIR: ROUNDS
+     * times each, the median and range of the wall time printed.
+     */
+    private static void trend(Path dir, int rounds) throws Exception {
+        try (H2Store h2 = H2Store.open(dir.resolve("data"), Duration.ofDays(3650), Duration.ofHours(1),
+                Clock.systemUTC())) {
+            for (SeriesRef s : List.of(SeriesRef.of(Measurement.RECONCILIATION, "fernholm", "unit1", "S-3", "reconciled",
+                    "measured"), SeriesRef.of(Measurement.CLOSURE, "fernholm", "unit1", "check_2", "residual_W",
+                    "sigma_W"), SeriesRef.of(Measurement.STATES, "fernholm", "unit1", "state_4", "p_Pa"))) {
+                double[] ms = new double[rounds];
+                long n = 0;
+                for (int r = 0; r < rounds; r++) {
+                    // A window shifted by r minutes each time, so that H2 cannot reuse an earlier result.
+                    Instant from = START.plus(Duration.ofMinutes(r));
+                    long t0 = System.nanoTime();
+                    n = h2.buckets(s, from, from.plus(Duration.ofHours(8)), Duration.ofMinutes(1)).values().iterator().next().stream()
+                            .mapToLong(Bucket::count).sum();
+                    ms[r] = (System.nanoTime() - t0) / 1e6;
+                }
+                Arrays.sort(ms);
+                System.out.printf("trend %s %s over 8 h (%d samples): median %.1f ms (min %.1f, max %.1f)%n",
+                        s.measurement().measurementName(), s.id(), n, ms[rounds / 2], ms[0], ms[rounds - 1]);
+            }
+        }
     }
 
     private static double median(List<double[]> runs, int column) {
