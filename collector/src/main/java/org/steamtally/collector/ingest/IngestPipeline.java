@@ -40,7 +40,8 @@ import org.steamtally.collector.units.Units;
  * barometer's atmospheric pressure), validates, aligns per unit ({@link SnapshotAligner}) and hands
  * the snapshots to one {@link SnapshotSlot} per unit, where the newest wins. A unit's snapshot is
  * handed over as soon as the reading that completes it has been taken in, or at the allowed lateness
- * when it stays incomplete.
+ * when it stays incomplete; the worker's time never runs past the oldest message still waiting in
+ * its queue, so that its own backlog never makes a reading late (see {@link #workerClock}).
  *
  * <p>Every reading is either accepted ({@code steamtally.readings.accepted}, tag {@code sensor}) or
  * counted as rejected ({@code steamtally.readings.rejected}, tags {@code sensor} and {@code reason},
@@ -266,12 +267,28 @@ public final class IngestPipeline implements AutoCloseable {
         return n;
     }
 
-    /** Moves every unit's aligner to the clock and hands due snapshots to the slots (the worker's step). */
+    /**
+     * Moves every unit's aligner to the {@linkplain #workerClock worker's clock} and hands due snapshots
+     * to the slots (the worker's step).
+     */
     public void tick() {
-        long now = clock.millis();
+        long now = workerClock();
         for (int u = 0; u < aligners.length; u++) {
             deliver(u, aligners[u].advanceTo(now));
         }
+    }
+
+    /**
+     * The time the aligners and the timestamp limits go by: the clock, but never later than the
+     * arrival of the oldest message still waiting in the queue. A reading queued behind the worker's
+     * own backlog did not arrive late: judged by the clock alone, a backlog of a few seconds (a cold
+     * start of a large fleet, the burst after a broker restart) turns every sensor of every unit stale
+     * at once and raises a flood of alarms that is the daemon's own doing, not the plant's.
+     */
+    private long workerClock() {
+        long now = clock.millis();
+        Incoming oldest = queue.peek();
+        return oldest == null ? now : Math.min(now, oldest.arrivalMillis());
     }
 
     private void deliver(int u, List<Snapshot> due) {
@@ -296,7 +313,9 @@ public final class IngestPipeline implements AutoCloseable {
 
     private void handle(Incoming m) {
         List<TopicMap.Target> targets = topics.targets(m.topic());
-        long now = clock.millis();
+        // The message is judged as of its arrival, however long it waited in the queue: its age, its
+        // skew, and the snapshots due before it.
+        long now = Math.min(clock.millis(), m.arrivalMillis());
         for (int u = 0; u < aligners.length; u++) {
             deliver(u, aligners[u].advanceTo(now));
         }
@@ -335,11 +354,12 @@ public final class IngestPipeline implements AutoCloseable {
             }
         }
         // The reading may have completed its unit's snapshot: handed over now, not at the next message.
+        long after = workerClock();
         int last = -1;
         for (TopicMap.Target t : targets) {
             if (t.unitIndex() != last) {
                 last = t.unitIndex();
-                deliver(last, aligners[last].advanceTo(now));
+                deliver(last, aligners[last].advanceTo(after));
             }
         }
     }

@@ -304,6 +304,43 @@ class IngestPipelineTest {
     }
 
     @Test
+    void readingsWaitingBehindTheWorkersOwnBacklogDoNotTurnTheirSensorsStale() {
+        IngestPipeline p = pipeline(settings().allowedLateness(Duration.ofMillis(500)));
+        send(p, PT_TOPIC, reading(16.0, MS0));
+        send(p, TT_TOPIC, reading(540, MS0));
+        send(p, FT_TOPIC, reading(360, MS0));
+        send(p, PB_TOPIC, reading(101.3, MS0));
+        assertEquals(T0, p.slot("unit1").poll().orElseThrow().timestamp());
+        // The readings of t = 1 s to 8 s arrive on time, each second, but the worker takes them in only
+        // at t = 9 s (a cold start, a burst after a broker restart): its backlog is longer than the
+        // sensors' 5 s max age and than the readings' allowed age.
+        for (int k = 1; k <= 8; k++) {
+            clock.set(MS0 + 1_000L * k);
+            for (String topic : List.of(PT_TOPIC, TT_TOPIC, FT_TOPIC, PB_TOPIC)) {
+                double value = topic.equals(TT_TOPIC) ? 540 + k : topic.equals(PB_TOPIC) ? 101.3 : 16.0;
+                assertTrue(p.submit(topic, json(reading(value, MS0 + 1_000L * k))), "queued");
+            }
+        }
+        clock.set(MS0 + 9_000);
+        p.tick();
+        assertEquals(Optional.empty(), p.slot("unit1").poll(),
+                "no snapshot is given up as stale while its readings wait in the queue");
+        List<Snapshot> taken = new ArrayList<>();
+        while (p.processPending(1) > 0) {
+            p.slot("unit1").poll().ifPresent(taken::add);
+        }
+        assertAll(
+                () -> assertEquals(8, taken.size(), "one snapshot for each second of the backlog"),
+                () -> assertTrue(taken.stream().allMatch(s -> s.status()[PT] == SensorStatus.GOOD
+                        && s.status()[TT] == SensorStatus.GOOD && s.status()[FT] == SensorStatus.GOOD),
+                        "every sensor good in every one"),
+                () -> assertEquals(T0.plusSeconds(8), taken.get(taken.size() - 1).timestamp()),
+                () -> assertEquals(548 + 273.15, taken.get(taken.size() - 1).valuesSi()[TT], 1e-9),
+                () -> assertEquals(9.0, accepted("TT-101"), "every queued reading accepted, none too old"),
+                () -> assertEquals(0.0, p.slot("unit1").coalescedCount(), "none replaced"));
+    }
+
+    @Test
     void slowConsumerGetsTheNewestSnapshotAndTheReplacedOnesAreCounted() {
         IngestPipeline p = pipeline();
         send(p, PT_TOPIC, reading(16.0, MS0));
