@@ -27,7 +27,7 @@ import java.util.zip.CRC32C;
  * read segment is deleted. The journal's size is bounded: when an append takes it over its limit,
  * whole segments are dropped oldest first and the number of records lost is returned.
  * {@link #sync()} forces written bytes to the device; the caller schedules it. Thread-safe: every
- * method holds the journal's lock.
+ * method holds the journal's lock, except the force of {@link #sync()} itself.
  */
 final class Journal implements Closeable {
 
@@ -299,11 +299,30 @@ final class Journal implements Closeable {
         }
     }
 
-    /** Forces appended bytes to the storage device, when there are any since the last call. */
-    synchronized void sync() throws IOException {
-        if (dirty) {
-            writer.force(false);
+    /**
+     * Forces appended bytes to the storage device, when there are any since the last call. The force
+     * runs outside the journal's lock: on a busy disk it can take a second, and appends (from the
+     * threads that produce results, when the store is behind) and the writer's reads must not wait
+     * for it. Bytes appended meanwhile are forced by the next call.
+     */
+    void sync() throws IOException {
+        FileChannel channel;
+        synchronized (this) {
+            if (!dirty) {
+                return;
+            }
+            channel = writer;
             dirty = false;
+        }
+        try {
+            channel.force(false);
+        } catch (java.nio.channels.ClosedChannelException e) {
+            // The appends moved on to a new segment meanwhile, which forced this one before closing it.
+        } catch (IOException e) {
+            synchronized (this) {
+                dirty = true;
+            }
+            throw e;
         }
     }
 
@@ -323,7 +342,7 @@ final class Journal implements Closeable {
 
     @Override
     public synchronized void close() throws IOException {
-        sync();
+        sync(); // under the lock here: nothing may append while the journal closes
         writer.close();
         for (Segment s : segments) {
             closeReader(s);
