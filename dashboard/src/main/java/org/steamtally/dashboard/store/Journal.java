@@ -34,6 +34,8 @@ final class Journal implements Closeable {
     static final int HEADER_BYTES = 8;
     /** Larger lengths are not records of ours but damage; a point encodes to a few hundred bytes. */
     static final int MAX_RECORD_BYTES = 1 << 20;
+    /** Bytes read at once by {@link #peek}: about a thousand points' records. */
+    private static final int PEEK_CHUNK_BYTES = 256 * 1024;
 
     private static final String PREFIX = "spool-";
     private static final String SUFFIX = ".log";
@@ -244,18 +246,30 @@ final class Journal implements Closeable {
         Segment s = segments.getFirst();
         long pos = readOffset;
         int index = readRecordsInSegment;
-        ByteBuffer header = ByteBuffer.allocate(HEADER_BYTES);
+        // Many records per read: the lock is held meanwhile, and two reads per record (header, then
+        // payload) kept the threads that append waiting behind a thousand system calls a batch.
+        ByteBuffer buf = ByteBuffer.allocate(0);
         while (out.size() < max && index < s.records) {
             if (s.reader == null) {
                 s.reader = FileChannel.open(s.path, StandardOpenOption.READ);
             }
-            header.clear();
-            readFully(s.reader, header, pos);
-            int len = header.getInt(0);
-            ByteBuffer payload = ByteBuffer.allocate(len);
-            readFully(s.reader, payload, pos + HEADER_BYTES);
-            out.add(payload.array());
-            pos += HEADER_BYTES + len;
+            int need = buf.remaining() >= HEADER_BYTES ? HEADER_BYTES + buf.getInt(buf.position()) : HEADER_BYTES;
+            if (buf.remaining() < need) {
+                long left = s.bytes - pos;
+                if (left < need) {
+                    throw new IOException("journal segment " + s.path + ": the record at byte " + pos + " needs "
+                            + need + " bytes, " + left + " are left");
+                }
+                buf = ByteBuffer.allocate((int) Math.min(left, Math.max(PEEK_CHUNK_BYTES, need)));
+                readFully(s.reader, buf, pos);
+                buf.flip();
+                continue;
+            }
+            buf.position(buf.position() + HEADER_BYTES);
+            byte[] payload = new byte[need - HEADER_BYTES];
+            buf.get(payload);
+            out.add(payload);
+            pos += need;
             index++;
         }
         peeked = out.size();

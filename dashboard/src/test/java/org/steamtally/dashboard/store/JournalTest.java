@@ -76,6 +76,30 @@ class JournalTest {
     }
 
     @Test
+    void recordsLargerThanOneReadAndManySmallOnesAroundThemComeBackWhole() throws IOException {
+        // peek reads 256 KiB at a time: a record that straddles a read, and one larger than a read.
+        List<byte[]> written = new ArrayList<>();
+        java.util.Random random = new java.util.Random(20261202);
+        for (int i = 0; i < 3_000; i++) {
+            byte[] r = new byte[i == 1_500 ? 700_000 : 1 + random.nextInt(400)];
+            random.nextBytes(r);
+            written.add(r);
+        }
+        try (Journal j = new Journal(dir, 64L << 20, 16L << 20)) {
+            j.append(written);
+            List<byte[]> read = new ArrayList<>();
+            while (!j.isEmpty()) {
+                read.addAll(j.peek(1_000));
+                j.acknowledge();
+            }
+            assertEquals(written.size(), read.size());
+            for (int i = 0; i < written.size(); i++) {
+                assertArrayEquals(written.get(i), read.get(i), "record " + i);
+            }
+        }
+    }
+
+    @Test
     void syncsRunningBesideAppendsAcrossSegmentRollsLoseNoRecordAndKeepTheOrder() throws Exception {
         // The force of a sync runs outside the lock, beside appends that roll over to new segments
         // (closing the channel a sync may be forcing): no failure, nothing lost, order kept.
