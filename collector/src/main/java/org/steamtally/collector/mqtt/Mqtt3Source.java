@@ -52,7 +52,8 @@ final class Mqtt3Source extends ReconnectingSource {
         options.setMaxInflight(SIDE_PUBLISH_WINDOW);
         settings.username().ifPresent(u -> options.setUserName(new String(u.resolve(environment))));
         settings.password().ifPresent(p -> options.setPassword(p.resolve(environment)));
-        TlsSockets.socketFactory(settings, environment).ifPresent(options::setSocketFactory);
+        NoDelaySockets.forBrokers(settings.brokerUrls(), TlsSockets.socketFactory(settings, environment))
+                .ifPresent(options::setSocketFactory);
         client.setCallback(new Callback());
     }
 

@@ -51,7 +51,8 @@ final class Mqtt5Source extends ReconnectingSource {
         settings.username().ifPresent(u -> options.setUserName(new String(u.resolve(environment))));
         settings.password().ifPresent(p -> options.setPassword(
                 new String(p.resolve(environment)).getBytes(StandardCharsets.UTF_8)));
-        TlsSockets.socketFactory(settings, environment).ifPresent(options::setSocketFactory);
+        NoDelaySockets.forBrokers(settings.brokerUrls(), TlsSockets.socketFactory(settings, environment))
+                .ifPresent(options::setSocketFactory);
         client.setCallback(new Callback());
     }
 
