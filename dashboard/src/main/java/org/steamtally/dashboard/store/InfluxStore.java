@@ -31,6 +31,14 @@ public final class InfluxStore implements StoreBackend {
     /** Adapter name in meters and logs. */
     public static final String NAME = "influxdb";
 
+    /**
+     * Points per write: InfluxData's guidance for 1.x and 2.x is 5,000 lines of line protocol a
+     * request ("Optimize writes to InfluxDB", docs.influxdata.com). Against a server that forces its
+     * write-ahead log to disk on every request, a fleet's 9,600 points/s in writes of 1,000 could not
+     * catch up once behind.
+     */
+    public static final int BATCH_POINTS = 5_000;
+
     private final InfluxSettings settings;
     private final InfluxDB influx;
     private volatile boolean databaseEnsured;

@@ -72,6 +72,12 @@ public record SpoolSettings(Path spoolDir, int queueCapacity, int batchSize, lon
                 max);
     }
 
+    /** The same settings with another number of points per write to the store. */
+    public SpoolSettings withBatchSize(int points) {
+        return new SpoolSettings(spoolDir, queueCapacity, points, spoolMaxBytes, segmentBytes, syncInterval, retryMin,
+                retryMax);
+    }
+
     /** The same settings with another journal bound and segment size. */
     public SpoolSettings withSpoolBytes(long maxBytes, long segment) {
         return new SpoolSettings(spoolDir, queueCapacity, batchSize, maxBytes, segment, syncInterval, retryMin,

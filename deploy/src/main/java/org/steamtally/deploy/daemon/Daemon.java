@@ -173,6 +173,9 @@ public final class Daemon implements AutoCloseable {
                 / config.collector().snapshotPeriod().toMillis() * 1000.0;
         SpoolSettings spool = SpoolSettings.forNominalRate(config.dataDir().resolve("spool"), pointsPerSecond,
                 BYTES_PER_POINT);
+        if (backend instanceof InfluxStore) {
+            spool = spool.withBatchSize(InfluxStore.BATCH_POINTS);
+        }
         return SpooledStore.open(backend, spool, registry, new StoreListener() {
             @Override
             public void spoolDropped(long points, long totalDropped, Instant at) {
