@@ -1,6 +1,5 @@
 package org.steamtally.collector.mqtt;
 
-import java.util.Optional;
 import org.eclipse.paho.client.mqttv3.IMqttActionListener;
 import org.eclipse.paho.client.mqttv3.IMqttToken;
 import org.eclipse.paho.client.mqttv3.MqttAsyncClient;
@@ -31,8 +30,6 @@ final class Mqtt3Publisher extends WindowedPublisher {
         try {
             client = new MqttAsyncClient(options.brokerUrls().get(0), options.clientId(), new MemoryPersistence());
             connectOptions = new MqttConnectOptions();
-            NoDelaySockets.forBrokers(options.brokerUrls(), Optional.empty())
-                    .ifPresent(connectOptions::setSocketFactory);
             connectOptions.setMqttVersion(MqttConnectOptions.MQTT_VERSION_3_1_1);
             connectOptions.setServerURIs(options.brokerUrls().toArray(new String[0]));
             connectOptions.setCleanSession(options.cleanStart());

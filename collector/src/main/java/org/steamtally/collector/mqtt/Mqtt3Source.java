@@ -52,8 +52,7 @@ final class Mqtt3Source extends ReconnectingSource {
         options.setMaxInflight(SIDE_PUBLISH_WINDOW);
         settings.username().ifPresent(u -> options.setUserName(new String(u.resolve(environment))));
         settings.password().ifPresent(p -> options.setPassword(p.resolve(environment)));
-        NoDelaySockets.forBrokers(settings.brokerUrls(), TlsSockets.socketFactory(settings, environment))
-                .ifPresent(options::setSocketFactory);
+        TlsSockets.socketFactory(settings, environment).ifPresent(options::setSocketFactory);
         client.setCallback(new Callback());
     }
 

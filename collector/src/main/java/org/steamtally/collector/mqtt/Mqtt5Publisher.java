@@ -1,6 +1,5 @@
 package org.steamtally.collector.mqtt;
 
-import java.util.Optional;
 import org.eclipse.paho.mqttv5.client.IMqttToken;
 import org.eclipse.paho.mqttv5.client.MqttActionListener;
 import org.eclipse.paho.mqttv5.client.MqttAsyncClient;
@@ -32,8 +31,6 @@ final class Mqtt5Publisher extends WindowedPublisher {
         try {
             client = new MqttAsyncClient(options.brokerUrls().get(0), options.clientId(), new MemoryPersistence());
             connectOptions = new MqttConnectionOptions();
-            NoDelaySockets.forBrokers(options.brokerUrls(), Optional.empty())
-                    .ifPresent(connectOptions::setSocketFactory);
             connectOptions.setServerURIs(options.brokerUrls().toArray(new String[0]));
             connectOptions.setCleanStart(options.cleanStart());
             connectOptions.setSessionExpiryInterval(options.cleanStart() ? 0L : 3600L);

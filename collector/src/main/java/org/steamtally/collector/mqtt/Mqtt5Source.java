@@ -51,8 +51,7 @@ final class Mqtt5Source extends ReconnectingSource {
         settings.username().ifPresent(u -> options.setUserName(new String(u.resolve(environment))));
         settings.password().ifPresent(p -> options.setPassword(
                 new String(p.resolve(environment)).getBytes(StandardCharsets.UTF_8)));
-        NoDelaySockets.forBrokers(settings.brokerUrls(), TlsSockets.socketFactory(settings, environment))
-                .ifPresent(options::setSocketFactory);
+        TlsSockets.socketFactory(settings, environment).ifPresent(options::setSocketFactory);
         client.setCallback(new Callback());
     }
 
