@@ -330,6 +330,12 @@ final class Journal implements Closeable {
         }
         try {
             channel.force(false);
+        } catch (java.nio.channels.ClosedByInterruptException e) {
+            // Not a segment roll: this thread was interrupted, and the bytes are not known to be forced.
+            synchronized (this) {
+                dirty = true;
+            }
+            throw e;
         } catch (java.nio.channels.ClosedChannelException e) {
             // The appends moved on to a new segment meanwhile, which forced this one before closing it.
         } catch (IOException e) {
