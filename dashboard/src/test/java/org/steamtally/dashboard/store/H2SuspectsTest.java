@@ -57,7 +57,13 @@ class H2SuspectsTest {
     }
 
     static List<SuspectSensor> rawSuspects(Connection c, Instant from, Instant to) throws SQLException {
-        try (var ps = c.prepareStatement(RAW_SUSPECTS)) {
+        return suspects(c, RAW_SUSPECTS, from, to);
+    }
+
+    /** The suspects {@code sql} finds for the test's site and unit in [from, to). */
+    private static List<SuspectSensor> suspects(Connection c, String sql, Instant from, Instant to)
+            throws SQLException {
+        try (var ps = c.prepareStatement(sql)) {
             ps.setString(1, SITE);
             ps.setString(2, UNIT);
             ps.setLong(3, from.toEpochMilli());
@@ -189,18 +195,6 @@ class H2SuspectsTest {
     }
 
     private static List<SuspectSensor> suspectsOfTable(Connection c, Instant from, Instant to) throws SQLException {
-        try (var ps = c.prepareStatement(H2Suspects.query())) {
-            ps.setString(1, SITE);
-            ps.setString(2, UNIT);
-            ps.setLong(3, from.toEpochMilli());
-            ps.setLong(4, to.toEpochMilli());
-            List<SuspectSensor> out = new ArrayList<>();
-            try (ResultSet rs = ps.executeQuery()) {
-                while (rs.next()) {
-                    out.add(new SuspectSensor(rs.getString(1), rs.getLong(2), rs.getDouble(3)));
-                }
-            }
-            return out;
-        }
+        return suspects(c, H2Suspects.query(), from, to);
     }
 }
