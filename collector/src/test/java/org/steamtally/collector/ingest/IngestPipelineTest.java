@@ -335,6 +335,7 @@ class IngestPipelineTest {
                         && s.status()[TT] == SensorStatus.GOOD && s.status()[FT] == SensorStatus.GOOD),
                         "every sensor good in every one"),
                 () -> assertEquals(T0.plusSeconds(8), taken.get(taken.size() - 1).timestamp()),
+                // NIST SP 811 (2008), B.9: T/K = t/°C + 273.15, exact.
                 () -> assertEquals(548 + 273.15, taken.get(taken.size() - 1).valuesSi()[TT], 1e-9),
                 () -> assertEquals(9.0, accepted("TT-101"), "every queued reading accepted, none too old"),
                 () -> assertEquals(0.0, p.slot("unit1").coalescedCount(), "none replaced"));
