@@ -539,6 +539,12 @@ public final class FleetLoadDriver {
         return sums;
     }
 
+    /** The mean of a timer between two samples, in ms, from its {@code _sum} and {@code _count}; "–" when empty. */
+    private static String meanMillis(Sample a, Sample b, String timer) {
+        double count = delta(a, b, timer + "_count");
+        return count > 0 ? String.format(Locale.ROOT, "%.1f", 1000 * delta(a, b, timer + "_sum") / count) : "–";
+    }
+
     private static long processTicks(long pid) {
         try {
             String stat = Files.readString(Path.of("/proc/" + pid + "/stat"));
@@ -767,6 +773,9 @@ public final class FleetLoadDriver {
                 + "  max %s", ms(first[0]), ms(first[1]), ms(first[2]), ms(first[3]));
         p.line("after the snapshot was due (its time + lateness), ms:                           p50 %s  p95 %s  p99 %s"
                 + "  max %s", ms(due[0]), ms(due[1]), ms(due[2]), ms(due[3]));
+        p.line("the daemon's own timers, mean over the window: evaluation of a snapshot %s ms; from a snapshot's time"
+                + " to its result stored and published %s ms", meanMillis(a, b, "steamtally_calc_time_seconds"),
+                meanMillis(a, b, "steamtally_snapshot_latency_seconds"));
         p.line("/metrics scraped every %s s in the window: %d scrapes, longest %s ms", opts.getOrDefault("scrape", "15"),
                 scrapeMillis.size(), scrapeMillis.stream().mapToLong(Long::longValue).max().orElse(0));
         p.line("daemon heap (jstat): peak in use %.0f MB (old generation peak %.0f MB) of %.0f MB committed;"
