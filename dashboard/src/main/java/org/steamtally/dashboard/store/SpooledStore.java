@@ -43,6 +43,7 @@ public final class SpooledStore implements ResultStore {
     static final String SPOOL_BYTES = "steamtally.store.spool.bytes";
     static final String SPOOL_DROPPED = "steamtally.store.spool.dropped";
     static final String REJECTED = "steamtally.store.rejected";
+    static final String WRITES = "steamtally.store.writes";
 
     /** Longest the writer waits for new points before looking at the journal again. */
     private static final Duration IDLE_POLL = Duration.ofMillis(100);
@@ -57,6 +58,7 @@ public final class SpooledStore implements ResultStore {
     private final ArrayBlockingQueue<Point> queue;
     private final Counter droppedCounter;
     private final Counter rejectedCounter;
+    private final Counter writesCounter;
     private final Thread writer;
     private final ScheduledExecutorService syncer;
     private final java.util.concurrent.ExecutorService queries;
@@ -90,6 +92,8 @@ public final class SpooledStore implements ResultStore {
                 .description("points dropped, oldest first, because the journal was full").register(registry);
         this.rejectedCounter = Counter.builder(REJECTED).tag("store", store)
                 .description("points the store refused for good").register(registry);
+        this.writesCounter = Counter.builder(WRITES).tag("store", store)
+                .description("writes to the store, each a batch of points, whether it succeeded or not").register(registry);
         this.writer = new Thread(this::run, "steamtally-store-writer-" + store);
         this.writer.setDaemon(true);
         this.queries = Executors.newSingleThreadExecutor(r -> {
@@ -274,8 +278,40 @@ public final class SpooledStore implements ResultStore {
         if (first != null) {
             batch.add(first);
             queue.drainTo(batch, settings.batchSize() - 1);
+            if (!pending && !down) {
+                gather(batch);
+            }
         }
         return batch;
+    }
+
+    /**
+     * Holds a batch that is not full for more points, up to {@link SpoolSettings#linger} from now,
+     * until it is full or no point has come for {@link SpoolSettings#lingerGap}: one write after a
+     * burst of results instead of many small ones during it. Not while closing (looked at every
+     * {@link #IDLE_POLL}), nor for the journal's batches, which are full or the last of a backlog.
+     */
+    private void gather(List<Point> batch) {
+        long last = System.nanoTime();
+        long deadline = last + settings.linger().toNanos();
+        long gap = settings.lingerGap().toNanos();
+        try {
+            while (batch.size() < settings.batchSize() && !closing) {
+                long left = Math.min(deadline, last + gap) - System.nanoTime();
+                if (left <= 0) {
+                    return;
+                }
+                Point next = queue.poll(Math.min(left, IDLE_POLL.toNanos()), TimeUnit.NANOSECONDS);
+                if (next != null) {
+                    batch.add(next);
+                    queue.drainTo(batch, settings.batchSize() - batch.size());
+                    last = System.nanoTime();
+                }
+            }
+        } catch (InterruptedException e) {
+            // The batch in hand is written (or spooled) all the same; the writer stops at its next wait.
+            Thread.currentThread().interrupt();
+        }
     }
 
     private boolean ready() {
@@ -284,6 +320,7 @@ public final class SpooledStore implements ResultStore {
 
     private void direct(List<Point> batch) {
         try {
+            writesCounter.increment();
             backend.write(batch);
         } catch (StoreUnavailableException e) {
             markDown(e);
@@ -308,6 +345,7 @@ public final class SpooledStore implements ResultStore {
             }
         }
         try {
+            writesCounter.increment();
             backend.write(points);
         } catch (StoreUnavailableException e) {
             markDown(e);

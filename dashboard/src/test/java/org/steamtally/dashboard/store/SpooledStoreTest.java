@@ -1,6 +1,7 @@
 package org.steamtally.dashboard.store;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 import static org.steamtally.dashboard.store.StoreFixtures.T0;
 
@@ -22,9 +23,10 @@ class SpooledStoreTest {
     @TempDir
     Path dir;
 
-    /** A backend that records what it is given and fails while told to. */
+    /** A backend that records what it is given, and in how many writes, and fails while told to. */
     static final class FakeBackend extends WriteOnlyBackend {
         final List<Point> written = Collections.synchronizedList(new ArrayList<>());
+        final List<Integer> batches = Collections.synchronizedList(new ArrayList<>());
         volatile boolean down;
 
         @Override
@@ -37,6 +39,7 @@ class SpooledStoreTest {
             if (down) {
                 throw new StoreUnavailableException("fake store is down", null);
             }
+            batches.add(points.size());
             written.addAll(points);
         }
     }
@@ -99,6 +102,65 @@ class SpooledStoreTest {
             assertEquals(0.0, meters.get(SpooledStore.SPOOL_BYTES).gauge().value());
             assertEquals(0.0, meters.get(SpooledStore.QUEUE_DEPTH).gauge().value());
         }
+    }
+
+    @Test
+    void aLingeringBatchTakesThePointsOfABurstAndIsWrittenOnceWhenFull() throws Exception {
+        FakeBackend backend = new FakeBackend();
+        List<Point> burst = points(0, 10);
+        // a gap and a linger far longer than the test: only a full batch can end the wait
+        SpoolSettings lingering = settings().withBatchSize(burst.size())
+                .withLinger(Duration.ofSeconds(10), Duration.ofSeconds(10));
+        SimpleMeterRegistry meters = new SimpleMeterRegistry();
+        try (SpooledStore store = SpooledStore.open(backend, lingering, meters, StoreListener.NONE,
+                Clock.systemUTC())) {
+            for (int k = 0; k < 10; k++) {
+                store.writeResult(StoreFixtures.record(T0.plusSeconds(k), k));
+            }
+            assertTrue(store.flush(Duration.ofSeconds(5)), "written as soon as the batch was full");
+            assertEquals(List.of(burst.size()), backend.batches, "one write");
+            assertEquals(burst, backend.written);
+            assertEquals(1.0, meters.get(SpooledStore.WRITES).counter().count());
+        }
+    }
+
+    @Test
+    void aLingeringBatchIsWrittenWhenThePointsPauseWithoutWaitingOutTheLinger() throws Exception {
+        FakeBackend backend = new FakeBackend();
+        SpoolSettings lingering = settings().withBatchSize(100_000)
+                .withLinger(Duration.ofSeconds(10), Duration.ofMillis(100));
+        try (SpooledStore store = SpooledStore.open(backend, lingering, new SimpleMeterRegistry(), StoreListener.NONE,
+                Clock.systemUTC())) {
+            for (int k = 0; k < 10; k++) {
+                store.writeResult(StoreFixtures.record(T0.plusSeconds(k), k));
+            }
+            // far sooner than the 10 s linger: the 100 ms pause after the last point ended it
+            assertTrue(store.flush(Duration.ofSeconds(5)));
+            assertEquals(points(0, 10), backend.written);
+        }
+    }
+
+    @Test
+    void closingWhileABatchLingersWritesItAndLosesNoPoint() throws Exception {
+        FakeBackend backend = new FakeBackend();
+        SpoolSettings lingering = settings().withBatchSize(100_000)
+                .withLinger(Duration.ofSeconds(10), Duration.ofSeconds(10));
+        long start = System.nanoTime();
+        try (SpooledStore store = SpooledStore.open(backend, lingering, new SimpleMeterRegistry(), StoreListener.NONE,
+                Clock.systemUTC())) {
+            for (int k = 0; k < 10; k++) {
+                store.writeResult(StoreFixtures.record(T0.plusSeconds(k), k));
+            }
+        }
+        assertEquals(points(0, 10), backend.written, "the lingering batch was written at close");
+        assertTrue(System.nanoTime() - start < Duration.ofSeconds(9).toNanos(), "close did not wait out the linger");
+    }
+
+    @Test
+    void aLingerGapLongerThanTheLingerIsRefusedWithBothValues() {
+        IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
+                () -> settings().withLinger(Duration.ofMillis(100), Duration.ofSeconds(1)));
+        assertTrue(e.getMessage().contains("PT1S") && e.getMessage().contains("PT0.1S"), e.getMessage());
     }
 
     @Test

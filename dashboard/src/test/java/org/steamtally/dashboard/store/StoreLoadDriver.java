@@ -178,9 +178,7 @@ public final class StoreLoadDriver {
                 + (withReconciliation ? ResultPoints.of(reconciliation("u", START, 0)).size() : 0);
         SpoolSettings settings = SpoolSettings.forNominalRate(dir.resolve("spool"), units * perRecord, 300);
         if (batchSize > 0) {
-            settings = new SpoolSettings(settings.spoolDir(), settings.queueCapacity(), batchSize,
-                    settings.spoolMaxBytes(), settings.segmentBytes(), settings.syncInterval(), settings.retryMin(),
-                    settings.retryMax());
+            settings = settings.withBatchSize(batchSize);
         }
         try (SpooledStore store = SpooledStore.open(backend, settings, new SimpleMeterRegistry(), StoreListener.NONE,
                 Clock.systemUTC())) {

@@ -46,6 +46,8 @@ import org.slf4j.LoggerFactory;
 public final class Daemon implements AutoCloseable {
 
     private static final Logger LOG = LoggerFactory.getLogger(Daemon.class);
+    /** How long a batch of points may wait for more before it is written: a second's results, at most. */
+    static final Duration STORE_LINGER = Duration.ofSeconds(1);
 
     /** Results are kept this long in the embedded store (a year and a bit, for year-on-year review). */
     public static final Duration H2_RETENTION = Duration.ofDays(400);
@@ -176,6 +178,9 @@ public final class Daemon implements AutoCloseable {
         if (backend instanceof InfluxStore) {
             spool = spool.withBatchSize(InfluxStore.BATCH_POINTS);
         }
+        // The results of all units come in a burst at each snapshot time: written as they come, each
+        // burst was a score of small writes competing with the burst's own evaluations for the CPU.
+        spool = spool.withLinger(STORE_LINGER, SpoolSettings.LINGER_GAP);
         return SpooledStore.open(backend, spool, registry, new StoreListener() {
             @Override
             public void spoolDropped(long points, long totalDropped, Instant at) {

@@ -72,7 +72,8 @@ import org.steamtally.deploy.daemon.ExampleDesignPoints;
  *
  * <pre>
  * java -cp ... org.steamtally.deploy.bench.FleetLoadDriver [units=100] [warmup=60] [measure=300]
- *     [lateness=500ms] [heap=512m] [store=h2|influx] [jar=deploy/target/steamtally.jar] [example=deploy/examples/regenerative.yaml]
+ *     [lateness=500ms] [spread=0ms] [heap=512m] [store=h2|influx] [influx_nice=0] [jar=deploy/target/steamtally.jar]
+ *     [example=deploy/examples/regenerative.yaml]
  *     [keep=false]
  * </pre>
  */
@@ -90,6 +91,12 @@ public final class FleetLoadDriver {
     private final int measure;
     private final String lateness;
     private final long latenessMs;
+    /**
+     * How far the units' publications are spread over each second: unit u publishes its readings of
+     * step T (stamped T) at T + u × spread / units, as gateways that each poll their own unit would;
+     * 0, all at T at once, is the worst case.
+     */
+    private final long spreadMs;
     private final Path work;
     /** Where the daemon stores its results: {@code h2}, the embedded store, or {@code influx}, an influxd of our own. */
     private final String store;
@@ -125,6 +132,15 @@ public final class FleetLoadDriver {
             throw new IllegalArgumentException("lateness=" + lateness + ": expected whole milliseconds, e.g. 500ms");
         }
         this.latenessMs = Long.parseLong(lateness.substring(0, lateness.length() - 2));
+        String spread = opts.getOrDefault("spread", "0ms");
+        if (!spread.matches("\\d+ms")) {
+            throw new IllegalArgumentException("spread=" + spread + ": expected whole milliseconds, e.g. 400ms");
+        }
+        this.spreadMs = Long.parseLong(spread.substring(0, spread.length() - 2));
+        if (spreadMs >= latenessMs && spreadMs > 0) {
+            throw new IllegalArgumentException("spread=" + spread + " must be shorter than lateness=" + lateness
+                    + ": a reading published after its snapshot's lateness is late");
+        }
         this.store = opts.getOrDefault("store", "h2");
         if (!store.equals("h2") && !store.equals("influx")) {
             throw new IllegalArgumentException("store=" + store + ": expected h2 (the embedded store) or influx");
@@ -143,7 +159,8 @@ public final class FleetLoadDriver {
         for (String a : args) {
             int eq = a.indexOf('=');
             if (eq < 1) {
-                System.err.println("arguments are key=value: units, warmup, measure, lateness, heap, store, jar, example,"
+                System.err.println("arguments are key=value: units, warmup, measure, lateness, spread, heap, store, influx_nice, jar,"
+                        + " example,"
                         + " keep;"
                         + " got '" + a + "'");
                 System.exit(2);
@@ -232,8 +249,16 @@ public final class FleetLoadDriver {
         Map<String, String> daemonEnv = Map.of();
         if (store.equals("influx")) {
             int influxPort = freePort();
-            influxd = start(List.of(opts.getOrDefault("influxd", "influxd"), "run", "-config",
-                    writeInfluxConfig(influxPort, freePort()).toString()), work.resolve("influxd.log"));
+            List<String> command = new ArrayList<>();
+            int nice = Integer.parseInt(opts.getOrDefault("influx_nice", "0"));
+            if (nice != 0) {
+                // the store is not on the results' path (the daemon's journal absorbs its delays), so on a
+                // shared machine it may yield the CPU to the daemon, as OPERATIONS.md suggests
+                command.addAll(List.of("nice", "-n", Integer.toString(nice)));
+            }
+            command.addAll(List.of(opts.getOrDefault("influxd", "influxd"), "run", "-config",
+                    writeInfluxConfig(influxPort, freePort()).toString()));
+            influxd = start(command, work.resolve("influxd.log"));
             waitForPort(influxPort, Duration.ofSeconds(30), influxd, "influxd");
             influxUrl = "http://127.0.0.1:" + influxPort;
             daemonEnv = Map.of("STEAMTALLY_INFLUX_URL", influxUrl, "STEAMTALLY_INFLUX_DATABASE", INFLUX_DATABASE,
@@ -362,6 +387,9 @@ public final class FleetLoadDriver {
             boolean inWindow = second >= windowStart && second < windowEnd;
             try {
                 for (int u = 0; u < sims.length; u++) {
+                    if (spreadMs > 0) {
+                        sleepUntilMillis(second * 1000 + u * spreadMs / sims.length);
+                    }
                     SimulatedSample sample = sims[u].step(t);
                     long first = -1;
                     long last = -1;
@@ -745,9 +773,10 @@ public final class FleetLoadDriver {
 
         PrintFormat p = new PrintFormat();
         p.line("fleet benchmark: %d units × %d sensors at 1 Hz = %d messages/s offered; warm-up %d s, measured %d s;"
-                + " allowed lateness %s; daemon -Xmx%s; store %s", units, sensors, units * sensors, warmup, measure,
-                lateness, opts.getOrDefault("heap", "512m"),
-                store.equals("influx") ? "InfluxDB (an influxd of the driver's own)" : "embedded H2");
+                + " allowed lateness %s; units' publications spread over %d ms of each second; daemon -Xmx%s; store %s%s",
+                units, sensors, units * sensors, warmup, measure, lateness, spreadMs, opts.getOrDefault("heap", "512m"),
+                store.equals("influx") ? "InfluxDB (an influxd of the driver's own)" : "embedded H2",
+                opts.containsKey("influx_nice") ? " at nice " + opts.get("influx_nice") : "");
         p.line("machine: %d cores; load average at the window's start %s, at its end %s; machine CPU busy %.0f %%",
                 Runtime.getRuntime().availableProcessors(), a.loadavg(), b.loadavg(), 100 * machineCpu);
         p.line("published in the window: %d messages (%.0f/s); late steps (started > 500 ms after their second): %d;"
@@ -776,6 +805,7 @@ public final class FleetLoadDriver {
         p.line("the daemon's own timers, mean over the window: evaluation of a snapshot %s ms; from a snapshot's time"
                 + " to its result stored and published %s ms", meanMillis(a, b, "steamtally_calc_time_seconds"),
                 meanMillis(a, b, "steamtally_snapshot_latency_seconds"));
+        p.line("store writes (batches of points): %.1f a second", delta(a, b, "steamtally_store_writes_total") / seconds);
         p.line("/metrics scraped every %s s in the window: %d scrapes, longest %s ms", opts.getOrDefault("scrape", "15"),
                 scrapeMillis.size(), scrapeMillis.stream().mapToLong(Long::longValue).max().orElse(0));
         p.line("daemon heap (jstat): peak in use %.0f MB (old generation peak %.0f MB) of %.0f MB committed;"
