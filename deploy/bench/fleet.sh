@@ -10,6 +10,9 @@
 # Run from the repository root:
 #   sh deploy/bench/fleet.sh [units=100] [warmup=60] [measure=300] [lateness=500ms] [heap=512m]
 #                            [drain=300] [keep=true] [jvm='-XX:+UseSerialGC'] [report=FILE] [store=influx]
+#                            [spread=400ms] [influx_nice=10] [scrape=15]
+# spread: unit u publishes its readings of second T (stamped T) at T + u × spread / units instead of
+# all units at T at once; influx_nice: start the driver's influxd under nice.
 # Needs the `mosquitto` binary (Debian package mosquitto) and the JDK's jstat on the PATH; store=influx
 # also `influxd` (Debian package influxdb, 1.x).
 set -eu
