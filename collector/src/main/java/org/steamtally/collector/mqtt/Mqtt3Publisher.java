@@ -32,6 +32,7 @@ final class Mqtt3Publisher extends WindowedPublisher {
             connectOptions = new MqttConnectOptions();
             connectOptions.setMqttVersion(MqttConnectOptions.MQTT_VERSION_3_1_1);
             connectOptions.setServerURIs(options.brokerUrls().toArray(new String[0]));
+            BufferedSockets.forBrokers(options.brokerUrls()).ifPresent(connectOptions::setSocketFactory);
             connectOptions.setCleanSession(options.cleanStart());
             connectOptions.setAutomaticReconnect(false);
             connectOptions.setConnectionTimeout(ReconnectingSource.HANDSHAKE_TIMEOUT_S);

@@ -3,6 +3,7 @@ package org.steamtally.collector.mqtt;
 import java.util.Arrays;
 import java.util.List;
 import java.util.function.UnaryOperator;
+import javax.net.SocketFactory;
 import org.eclipse.paho.client.mqttv3.IMqttActionListener;
 import org.eclipse.paho.client.mqttv3.IMqttDeliveryToken;
 import org.eclipse.paho.client.mqttv3.IMqttToken;
@@ -52,7 +53,8 @@ final class Mqtt3Source extends ReconnectingSource {
         options.setMaxInflight(SIDE_PUBLISH_WINDOW);
         settings.username().ifPresent(u -> options.setUserName(new String(u.resolve(environment))));
         settings.password().ifPresent(p -> options.setPassword(p.resolve(environment)));
-        TlsSockets.socketFactory(settings, environment).ifPresent(options::setSocketFactory);
+        TlsSockets.socketFactory(settings, environment).<SocketFactory>map(tls -> tls)
+                .or(() -> BufferedSockets.forBrokers(settings.brokerUrls())).ifPresent(options::setSocketFactory);
         client.setCallback(new Callback());
     }
 

@@ -32,6 +32,7 @@ final class Mqtt5Publisher extends WindowedPublisher {
             client = new MqttAsyncClient(options.brokerUrls().get(0), options.clientId(), new MemoryPersistence());
             connectOptions = new MqttConnectionOptions();
             connectOptions.setServerURIs(options.brokerUrls().toArray(new String[0]));
+            BufferedSockets.forBrokers(options.brokerUrls()).ifPresent(connectOptions::setSocketFactory);
             connectOptions.setCleanStart(options.cleanStart());
             connectOptions.setSessionExpiryInterval(options.cleanStart() ? 0L : 3600L);
             connectOptions.setAutomaticReconnect(false);

@@ -3,6 +3,7 @@ package org.steamtally.collector.mqtt;
 import java.nio.charset.StandardCharsets;
 import java.util.List;
 import java.util.function.UnaryOperator;
+import javax.net.SocketFactory;
 import org.eclipse.paho.mqttv5.client.IMqttToken;
 import org.eclipse.paho.mqttv5.client.MqttActionListener;
 import org.eclipse.paho.mqttv5.client.MqttAsyncClient;
@@ -51,7 +52,8 @@ final class Mqtt5Source extends ReconnectingSource {
         settings.username().ifPresent(u -> options.setUserName(new String(u.resolve(environment))));
         settings.password().ifPresent(p -> options.setPassword(
                 new String(p.resolve(environment)).getBytes(StandardCharsets.UTF_8)));
-        TlsSockets.socketFactory(settings, environment).ifPresent(options::setSocketFactory);
+        TlsSockets.socketFactory(settings, environment).<SocketFactory>map(tls -> tls)
+                .or(() -> BufferedSockets.forBrokers(settings.brokerUrls())).ifPresent(options::setSocketFactory);
         client.setCallback(new Callback());
     }
 
