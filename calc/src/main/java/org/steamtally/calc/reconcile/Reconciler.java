@@ -572,7 +572,11 @@ public final class Reconciler {
      *                                  are not one positive finite value per sensor
      */
     public Reconciliation reconcile(Snapshot snapshot, double[] standardUncertaintySi) {
-        return reconcileWith(snapshot, inputSigma(SensorUncertainties.checked(unitId, sensors, standardUncertaintySi)));
+        SensorUncertainties.check(unitId, sensors, standardUncertaintySi);
+        double[] sigma = workspace.givenSigma;
+        System.arraycopy(standardUncertaintySi, 0, sigma, 0, sensorCount);
+        System.arraycopy(constantSigma, 0, sigma, sensorCount, constantSigma.length);
+        return reconcileWith(snapshot, sigma);
     }
 
     /** Per input, the standard uncertainty: the sensors' as given, then the declared constants'. */

@@ -62,6 +62,8 @@ final class ReconcilerWorkspace {
     final PivotedQr qg;
     final Enthalpy enthalpy = new Enthalpy();
 
+    /** Per input, the standard uncertainties given for one call: the sensors', then the constants'. */
+    final double[] givenSigma;
     /** Per input: the snapshot's value, whether usable, removed by serial elimination, named a suspect. */
     final double[] measured;
     final boolean[] usable;
@@ -104,6 +106,7 @@ final class ReconcilerWorkspace {
         coupled = new boolean[rows];
         qb = new PivotedQr(rows, size);
         qg = new PivotedQr(inputs, rows);
+        givenSigma = new double[inputs];
         measured = new double[inputs];
         usable = new boolean[inputs];
         removed = new boolean[inputs];
