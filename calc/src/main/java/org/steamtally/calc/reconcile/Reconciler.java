@@ -178,6 +178,9 @@ public final class Reconciler {
 
     private final int stateCount;
     private final String[] stateId;
+    /** Per flowing state, the ids its unmeasured flow and enthalpy are reported under, made once. */
+    private final String[] flowQuantityId;
+    private final String[] enthalpyQuantityId;
     private final int[] hMode;
     private final int[] pSensor;
     private final int[] tSensor;
@@ -234,6 +237,8 @@ public final class Reconciler {
         }
         stateCount = flowing.size();
         stateId = new String[stateCount];
+        flowQuantityId = new String[stateCount];
+        enthalpyQuantityId = new String[stateCount];
         hMode = new int[stateCount];
         pSensor = new int[stateCount];
         tSensor = new int[stateCount];
@@ -242,6 +247,8 @@ public final class Reconciler {
         for (int j = 0; j < stateCount; j++) {
             StateDefinition s = flowing.get(j);
             stateId[j] = s.id();
+            flowQuantityId[j] = s.id() + ".m_kg_per_s";
+            enthalpyQuantityId[j] = s.id() + ".h_J_per_kg";
             tSensor[j] = -1;
             flowSensor[j] = s.flowSensor().map(id -> sensor(sensorIndex, id, Quantity.MASS_FLOW)).orElse(-1);
             StateFix f = s.fix();
@@ -742,7 +749,8 @@ public final class Reconciler {
 
     private ReconciliationResult result(Solution s, double[] measured, boolean[] usable, boolean[] suspect,
                                         List<Suspect> suspects) {
-        List<ReconciledSensor> list = new ArrayList<>();
+        // sized for every input at once: the record copies the list, so growing it would be garbage twice
+        List<ReconciledSensor> list = new ArrayList<>(inputCount);
         for (int q = 0; q < inputCount; q++) {
             boolean isSensor = q < sensorCount;
             if (isSensor ? !inModel[q] : constantSigma[q - sensorCount] == 0.0) {
@@ -763,14 +771,14 @@ public final class Reconciler {
                     redundant ? OptionalDouble.of(s.test[q]) : OptionalDouble.empty(),
                     redundant ? "redundant" : "just_determined", suspect[q]));
         }
-        List<ReconciledQuantity> unmeasured = new ArrayList<>();
+        List<ReconciledQuantity> unmeasured = new ArrayList<>(s.nu);
         for (int z = 0; z < s.role.length; z++) {
             if (s.role[z] != UNKNOWN || z < inputCount) {
                 continue;
             }
             boolean flow = z < inputCount + stateCount;
             int j = flow ? z - inputCount : z - inputCount - stateCount;
-            String id = stateId[j] + (flow ? ".m_kg_per_s" : ".h_J_per_kg");
+            String id = flow ? flowQuantityId[j] : enthalpyQuantityId[j];
             boolean observable = s.converged && s.observable(z);
             unmeasured.add(new ReconciledQuantity(id, flow ? "kg/s" : "J/kg",
                     observable ? OptionalDouble.of(s.value[z]) : OptionalDouble.empty(),
@@ -787,7 +795,7 @@ public final class Reconciler {
      * One reconciliation with a given set of usable and removed inputs. Its arrays have room for
      * every variable of the unit; {@code measured} and {@code unknown} are used up to {@code nm} and
      * {@code nu}, {@code basis} up to nm rows of {@code redundancy} entries. Taken from
-     * {@link #solutions} and given back when the snapshot is done, so {@link #clear} must leave it
+     * {@link #spareSolutions} and given back when the snapshot is done, so {@link #clear} must leave it
      * as a new one would be.
      */
     private final class Solution {
