@@ -1415,13 +1415,14 @@ public final class Reconciler {
      * ŷ − y = −K (x̂ − x) with K = R₁₁⁻¹ Q₁ᵀ Â and cov(x̂) = S^{1/2} (I − P) S^{1/2}.
      *
      * @param q1a Q₁ᵀ Â by rows: {@code q1a[i][a]} is column i of Q (i below the rank of B) times
-     *            column a of Â
+     *            column a of Â; overwritten by K
      */
     private void unknownStatistics(Solution s, PivotedQr qb, double[][] q1a, double[] colScale, int nm, int nu) {
         int rb = qb.rank;
         markObservability(s, qb, nu);
         double[] k = workspace.kColumn;
-        double[][] kRows = workspace.kRows;
+        // K column by column in place of Q₁ᵀ Â: column a is read whole before it is written
+        double[][] kRows = q1a;
         for (int a = 0; a < nm; a++) {
             for (int i = 0; i < rb; i++) {
                 k[i] = q1a[i][a];

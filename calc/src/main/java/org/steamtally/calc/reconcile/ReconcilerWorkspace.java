@@ -50,8 +50,7 @@ final class ReconcilerWorkspace {
     final double[] basisColumn;
     /** Q₁ᵀ Â by rows. */
     final double[][] q1a;
-    /** K = R₁₁⁻¹ Q₁ᵀ Â by rows, and one of its columns while solving. */
-    final double[][] kRows;
+    /** A column of K = R₁₁⁻¹ Q₁ᵀ Â while solving for it (K itself takes the place of Q₁ᵀ Â). */
     final double[] kColumn;
     final double[] dots;
     /** A column of R₁₁⁻¹ R₁₂, and per pivot unknown whether a free one is coupled to it. */
@@ -99,7 +98,6 @@ final class ReconcilerWorkspace {
         t = new double[atLeastOne];
         basisColumn = new double[inputs];
         q1a = new double[rows][inputs];
-        kRows = new double[rows][inputs];
         kColumn = new double[atLeastOne];
         dots = new double[rows];
         nullColumn = new double[atLeastOne];
