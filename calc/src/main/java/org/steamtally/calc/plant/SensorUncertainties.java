@@ -51,6 +51,17 @@ public final class SensorUncertainties {
      * @throws IllegalArgumentException naming the unit, the sensor and the value when the count or a value is wrong
      */
     public static double[] checked(String unitId, Sensor[] sensors, double[] standardUncertaintySi) {
+        check(unitId, sensors, standardUncertaintySi);
+        return standardUncertaintySi.clone();
+    }
+
+    /**
+     * Checks as {@link #checked} does, without the copy: for a caller that copies the values into
+     * arrays of its own before it returns.
+     *
+     * @throws IllegalArgumentException as {@link #checked}
+     */
+    public static void check(String unitId, Sensor[] sensors, double[] standardUncertaintySi) {
         Objects.requireNonNull(standardUncertaintySi, "standardUncertaintySi");
         if (standardUncertaintySi.length != sensors.length) {
             throw new IllegalArgumentException("unit \"" + unitId + "\" has " + sensors.length
@@ -64,6 +75,5 @@ public final class SensorUncertainties {
                         + sensors[i].quantity().siUnit());
             }
         }
-        return standardUncertaintySi.clone();
     }
 }

@@ -21,16 +21,34 @@ final class PivotedQr {
      *  its square has fallen below this fraction of its last recomputed value (LAPACK's tol3z). */
     private static final double RECOMPUTE_BELOW = Math.sqrt(Math.ulp(1.0) / 2.0);
 
-    private final int rows;
-    private final int cols;
+    private int rows;
+    private int cols;
     /** Column j of R (pivoted order) at {@code a[j][0..j]}; below the diagonal, the reflector's tail. */
-    private final double[][] a;
-    /** Column k of A Π is column {@code perm[k]} of A. */
+    private double[][] a;
+    /** Column k of A Π is column {@code perm[k]} of A, for k below {@link #cols()}. */
     final int[] perm;
     /** Leading entry of reflector k (its tail is in {@code a[k][k+1..]}). */
     private final double[] head;
     private final double[] beta;
+    /** Per column, the partial squared norm (down-dated), and its value at the last recomputation. */
+    private final double[] partial;
+    private final double[] recomputed;
     int rank;
+
+    /**
+     * Room for the factorisation of any matrix of at most {@code maxRows} × {@code maxCols}, by
+     * {@link #factorColumns}: the working arrays are allocated here once, so that a caller that
+     * factors matrices of the same unit over and over allocates nothing per factorisation. Each
+     * factorisation replaces the previous one.
+     */
+    PivotedQr(int maxRows, int maxCols) {
+        perm = new int[maxCols];
+        int steps = Math.min(maxRows, maxCols);
+        head = new double[steps];
+        beta = new double[steps];
+        partial = new double[maxCols];
+        recomputed = new double[maxCols];
+    }
 
     /**
      * Factors the {@code rows} × {@code cols} matrix {@code a}, which is copied.
@@ -48,7 +66,8 @@ final class PivotedQr {
      * of another, whose entries may be nothing but rounding, the norm of the original is the scale.
      */
     PivotedQr(double[][] a, int rows, int cols, double relativeTolerance, double referenceNorm) {
-        this(transpose(a, rows, cols), rows, cols, relativeTolerance, referenceNorm, true);
+        this(rows, cols);
+        factorColumns(transpose(a, rows, cols), rows, cols, relativeTolerance, referenceNorm);
     }
 
     /**
@@ -57,7 +76,9 @@ final class PivotedQr {
      * overwritten), which spares a copy when the caller builds A for this factorisation only.
      */
     static PivotedQr ofColumns(double[][] columns, int rows, int cols, double relativeTolerance, double referenceNorm) {
-        return new PivotedQr(columns, rows, cols, relativeTolerance, referenceNorm, true);
+        PivotedQr qr = new PivotedQr(rows, cols);
+        qr.factorColumns(columns, rows, cols, relativeTolerance, referenceNorm);
+        return qr;
     }
 
     private static double[][] transpose(double[][] a, int rows, int cols) {
@@ -71,23 +92,27 @@ final class PivotedQr {
         return c;
     }
 
-    /** {@code byColumns} only tells this constructor apart from the public one taking rows. */
-    private PivotedQr(double[][] columns, int rows, int cols, double relativeTolerance, double referenceNorm,
-            boolean byColumns) {
+    /**
+     * Factors the matrix given by its columns as {@link #ofColumns} does, in place, into this
+     * instance's working arrays (which must have room for it), replacing the previous factorisation.
+     * The columns array is kept (its entries are swapped into pivoted order) until the next call.
+     *
+     * @throws IllegalArgumentException when the matrix is larger than the room made at construction
+     */
+    void factorColumns(double[][] columns, int rows, int cols, double relativeTolerance, double referenceNorm) {
+        if (cols > perm.length || Math.min(rows, cols) > head.length) {
+            throw new IllegalArgumentException("a " + rows + " x " + cols + " matrix does not fit a factorisation"
+                    + " made for " + perm.length + " columns and " + head.length + " steps");
+        }
         this.rows = rows;
         this.cols = cols;
         double[][] c = columns;
         this.a = c;
-        perm = new int[cols];
+        rank = 0;
         for (int j = 0; j < cols; j++) {
             perm[j] = j;
         }
         int steps = Math.min(rows, cols);
-        head = new double[steps];
-        beta = new double[steps];
-        // partial squared norms (down-dated) and their values at the last recomputation
-        double[] partial = new double[cols];
-        double[] recomputed = new double[cols];
         double largest = 0.0;
         for (int j = 0; j < cols; j++) {
             double n2 = norm2(c[j], 0);

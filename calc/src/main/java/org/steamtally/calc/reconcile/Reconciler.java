@@ -1,5 +1,6 @@
 package org.steamtally.calc.reconcile;
 
+import java.util.ArrayDeque;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.Comparator;
@@ -98,8 +99,12 @@ import org.steamtally.calc.plant.UnitDescription;
  * the whole set is reported. A declared duplicate pair (a sensor and its {@code same_measurand_as}
  * partner) is put in one set from |ρ| ≥ {@link #PAIR_EQUIVALENCE_CORRELATION}.
  *
- * <p>A {@code Reconciler} holds no per-snapshot state between calls; {@link #reconcile} allocates its
- * working arrays, so one instance may serve one thread at a time.
+ * <p>Not thread-safe: {@link #reconcile} works in arrays the instance holds ({@link ReconcilerWorkspace}),
+ * sized when the unit is compiled and reused by every snapshot, so one instance serves one thread
+ * at a time (the daemon gives each unit its own thread and its own evaluators). No result of a
+ * snapshot depends on the ones before it: every call gives what a freshly compiled instance would,
+ * and everything it returns is the caller's own. {@link #balancesOf} and {@link #quantityIds} read
+ * only what compilation fixed and are safe from any thread.
  */
 public final class Reconciler {
 
@@ -173,6 +178,9 @@ public final class Reconciler {
 
     private final int stateCount;
     private final String[] stateId;
+    /** Per flowing state, the ids its unmeasured flow and enthalpy are reported under, made once. */
+    private final String[] flowQuantityId;
+    private final String[] enthalpyQuantityId;
     private final int[] hMode;
     private final int[] pSensor;
     private final int[] tSensor;
@@ -192,6 +200,15 @@ public final class Reconciler {
     private final double testLimit;
     /** Per measured or declared quantity, the labels of the balances it enters; fixed at compile time. */
     private final Map<String, List<String>> balancesByQuantity;
+
+    /** Working arrays of {@link #reconcile}, reused from snapshot to snapshot; see {@link ReconcilerWorkspace}. */
+    private final ReconcilerWorkspace workspace;
+    /**
+     * Solutions no reconciliation refers to any more, for the next one to take: a snapshot holds at
+     * most four at a time (the first fit, the current and next step of serial elimination, and an
+     * alternative member of an equivalence set).
+     */
+    private final ArrayDeque<Solution> spareSolutions = new ArrayDeque<>();
 
     private Reconciler(UnitDescription unit) {
         unitId = unit.id();
@@ -220,6 +237,8 @@ public final class Reconciler {
         }
         stateCount = flowing.size();
         stateId = new String[stateCount];
+        flowQuantityId = new String[stateCount];
+        enthalpyQuantityId = new String[stateCount];
         hMode = new int[stateCount];
         pSensor = new int[stateCount];
         tSensor = new int[stateCount];
@@ -228,6 +247,8 @@ public final class Reconciler {
         for (int j = 0; j < stateCount; j++) {
             StateDefinition s = flowing.get(j);
             stateId[j] = s.id();
+            flowQuantityId[j] = s.id() + ".m_kg_per_s";
+            enthalpyQuantityId[j] = s.id() + ".h_J_per_kg";
             tSensor[j] = -1;
             flowSensor[j] = s.flowSensor().map(id -> sensor(sensorIndex, id, Quantity.MASS_FLOW)).orElse(-1);
             StateFix f = s.fix();
@@ -399,6 +420,7 @@ public final class Reconciler {
         }
         testLimit = ChiSquare.normalTwoSided(CONFIDENCE);
         balancesByQuantity = participation();
+        workspace = new ReconcilerWorkspace(rowCount, inputCount, stateCount, inputCount + 2 * stateCount);
     }
 
     /**
@@ -557,7 +579,11 @@ public final class Reconciler {
      *                                  are not one positive finite value per sensor
      */
     public Reconciliation reconcile(Snapshot snapshot, double[] standardUncertaintySi) {
-        return reconcileWith(snapshot, inputSigma(SensorUncertainties.checked(unitId, sensors, standardUncertaintySi)));
+        SensorUncertainties.check(unitId, sensors, standardUncertaintySi);
+        double[] sigma = workspace.givenSigma;
+        System.arraycopy(standardUncertaintySi, 0, sigma, 0, sensorCount);
+        System.arraycopy(constantSigma, 0, sigma, sensorCount, constantSigma.length);
+        return reconcileWith(snapshot, sigma);
     }
 
     /** Per input, the standard uncertainty: the sensors' as given, then the declared constants'. */
@@ -576,8 +602,8 @@ public final class Reconciler {
             throw new IllegalArgumentException("snapshot of unit \"" + unitId + "\" has " + snapshot.valuesSi().length
                     + " values; the unit has " + sensorCount + " sensors");
         }
-        double[] measured = new double[inputCount];
-        boolean[] usable = new boolean[inputCount];
+        double[] measured = workspace.measured;
+        boolean[] usable = workspace.usable;
         for (int i = 0; i < sensorCount; i++) {
             double v = snapshot.valuesSi()[i];
             measured[i] = v;
@@ -588,14 +614,16 @@ public final class Reconciler {
             measured[sensorCount + k] = constantValue[k];
             usable[sensorCount + k] = true;
         }
-        boolean[] removed = new boolean[inputCount];
+        boolean[] removed = workspace.removed;
+        Arrays.fill(removed, false);
         Solution base = solve(measured, usable, removed, null, sigma);
 
         List<Suspect> suspects = new ArrayList<>();
-        boolean[] suspect = new boolean[inputCount];
+        boolean[] suspect = workspace.suspect;
+        Arrays.fill(suspect, false);
         double[] excludingSuspects = null;
+        Solution current = base;
         if (base.status.equals(ReconciliationResult.FAILED)) {
-            Solution current = base;
             List<Integer> named = new ArrayList<>();
             for (int step = 1; step <= MAX_SUSPECTS; step++) {
                 int candidate = current.largestTest(removed, testLimit);
@@ -617,10 +645,12 @@ public final class Reconciler {
                     Solution alternative = solve(measured, usable, removed, base, sigma);
                     if (fitsBetter(alternative, next)) {
                         candidate = other;
+                        giveBack(next);
                         next = alternative;
                     } else {
                         removed[other] = false;
                         removed[candidate] = true;
+                        giveBack(alternative);
                     }
                 }
                 set.remove(Integer.valueOf(candidate));
@@ -641,6 +671,9 @@ public final class Reconciler {
                 suspects.add(new Suspect(step, inputId(candidate), inputUnit(candidate), ids, current.test[candidate], bias, sigmaBias,
                         confirmed));
                 named.add(candidate);
+                if (current != base) {
+                    giveBack(current);
+                }
                 current = next;
                 if (confirmed || !next.converged) {
                     if (confirmed) {
@@ -671,8 +704,28 @@ public final class Reconciler {
                 }
             }
         }
-        return new Reconciliation(result(base, measured, usable, suspect, suspects),
+        Reconciliation out = new Reconciliation(result(base, measured, usable, suspect, suspects),
                 base.status.equals(ReconciliationResult.PASSED) ? reconciled : null, excludingSuspects);
+        if (current != base) {
+            giveBack(current);
+        }
+        giveBack(base);
+        return out;
+    }
+
+    /** A solution cleared for a reconciliation with these uncertainties: one given back earlier, or a new one. */
+    private Solution takeSolution(double[] sigma) {
+        Solution s = spareSolutions.pollFirst();
+        if (s == null) {
+            s = new Solution(inputCount + 2 * stateCount);
+        }
+        s.clear(sigma);
+        return s;
+    }
+
+    /** For a solution nothing refers to any more: the next {@link #takeSolution} may hand it out again. */
+    private void giveBack(Solution s) {
+        spareSolutions.addFirst(s);
     }
 
     /** A converged fit beats one that did not converge; between converged ones, a χ² lower by more than 0.1. */
@@ -696,7 +749,8 @@ public final class Reconciler {
 
     private ReconciliationResult result(Solution s, double[] measured, boolean[] usable, boolean[] suspect,
                                         List<Suspect> suspects) {
-        List<ReconciledSensor> list = new ArrayList<>();
+        // sized for every input at once: the record copies the list, so growing it would be garbage twice
+        List<ReconciledSensor> list = new ArrayList<>(inputCount);
         for (int q = 0; q < inputCount; q++) {
             boolean isSensor = q < sensorCount;
             if (isSensor ? !inModel[q] : constantSigma[q - sensorCount] == 0.0) {
@@ -717,14 +771,14 @@ public final class Reconciler {
                     redundant ? OptionalDouble.of(s.test[q]) : OptionalDouble.empty(),
                     redundant ? "redundant" : "just_determined", suspect[q]));
         }
-        List<ReconciledQuantity> unmeasured = new ArrayList<>();
+        List<ReconciledQuantity> unmeasured = new ArrayList<>(s.nu);
         for (int z = 0; z < s.role.length; z++) {
             if (s.role[z] != UNKNOWN || z < inputCount) {
                 continue;
             }
             boolean flow = z < inputCount + stateCount;
             int j = flow ? z - inputCount : z - inputCount - stateCount;
-            String id = stateId[j] + (flow ? ".m_kg_per_s" : ".h_J_per_kg");
+            String id = flow ? flowQuantityId[j] : enthalpyQuantityId[j];
             boolean observable = s.converged && s.observable(z);
             unmeasured.add(new ReconciledQuantity(id, flow ? "kg/s" : "J/kg",
                     observable ? OptionalDouble.of(s.value[z]) : OptionalDouble.empty(),
@@ -737,18 +791,26 @@ public final class Reconciler {
 
     // ================================================================ the solve
 
-    /** One reconciliation with a given set of usable and removed inputs. */
+    /**
+     * One reconciliation with a given set of usable and removed inputs. Its arrays have room for
+     * every variable of the unit; {@code measured} and {@code unknown} are used up to {@code nm} and
+     * {@code nu}, {@code basis} up to nm rows of {@code redundancy} entries. Taken from
+     * {@link #spareSolutions} and given back when the snapshot is done, so {@link #clear} must leave it
+     * as a new one would be.
+     */
     private final class Solution {
         final int[] role;
         final double[] value;
         final int[] flowVar;
         final boolean[] activeRow;
         /** Per input, the standard uncertainty this reconciliation weights and tests with. */
-        final double[] sigma;
-        int[] measuredAt;
-        int[] unknownAt;
-        int[] measured;
-        int[] unknown;
+        double[] sigma;
+        final int[] measuredAt;
+        final int[] unknownAt;
+        final int[] measured;
+        final int[] unknown;
+        int nm;
+        int nu;
         boolean converged;
         int iterations;
         String reason;
@@ -756,19 +818,58 @@ public final class Reconciler {
         double chi2;
         int redundancy;
         /** P_ii per z index (inputs), 0 elsewhere. */
-        double[] projection;
-        double[] test;
-        /** Orthonormal basis of the row space of G, one row per measured quantity. */
-        double[][] basis;
-        boolean[] observableUnknown;
-        double[] sigmaUnknown;
+        final double[] projection;
+        final double[] test;
+        /** Orthonormal basis of the row space of G, one row per measured quantity; see {@link #basis(int, int)}. */
+        double[][] basis = new double[0][0];
+        final boolean[] observableUnknown;
+        final double[] sigmaUnknown;
 
-        Solution(int size, double[] sigma) {
-            this.sigma = sigma;
+        Solution(int size) {
             role = new int[size];
             value = new double[size];
             flowVar = new int[stateCount];
             activeRow = new boolean[rowCount];
+            measuredAt = new int[size];
+            unknownAt = new int[size];
+            measured = new int[inputCount];
+            unknown = new int[size];
+            projection = new double[size];
+            test = new double[size];
+            observableUnknown = new boolean[size];
+            sigmaUnknown = new double[size];
+        }
+
+        /**
+         * As new, for a reconciliation with these uncertainties. The arrays that {@link #solve} sets
+         * in full before reading ({@code flowVar}, {@code activeRow}, {@code measuredAt},
+         * {@code unknownAt}, {@code measured}, {@code unknown}) and the basis, which is read only
+         * after {@link #statistics} has set it, are left as they are.
+         */
+        void clear(double[] sigma) {
+            this.sigma = sigma;
+            Arrays.fill(role, UNUSED);
+            Arrays.fill(value, 0.0);
+            Arrays.fill(projection, 0.0);
+            Arrays.fill(test, 0.0);
+            Arrays.fill(observableUnknown, false);
+            Arrays.fill(sigmaUnknown, 0.0);
+            nm = 0;
+            nu = 0;
+            converged = false;
+            iterations = 0;
+            reason = null;
+            status = ReconciliationResult.NOT_RUN;
+            chi2 = 0.0;
+            redundancy = 0;
+        }
+
+        /** Makes room in {@link #basis} for {@code rows} rows of {@code cols} entries. */
+        void basis(int rows, int cols) {
+            if (basis.length < rows || (rows > 0 && basis[0].length < cols)) {
+                basis = new double[Math.max(rows, basis.length)][Math.max(cols, basis.length == 0 ? 0
+                        : basis[0].length)];
+            }
         }
 
         boolean observable(int z) {
@@ -796,7 +897,8 @@ public final class Reconciler {
             List<Integer> set = new ArrayList<>();
             set.add(q);
             double[] a = basis[measuredAt[q]];
-            for (int other : measured) {
+            for (int m = 0; m < nm; m++) {
+                int other = measured[m];
                 if (other == q || projection[other] <= REDUNDANT_TOLERANCE) {
                     continue;
                 }
@@ -829,7 +931,7 @@ public final class Reconciler {
     private Solution solve(double[] measuredValues, boolean[] usable, boolean[] removed, Solution start,
                            double[] sigma) {
         int size = inputCount + 2 * stateCount;
-        Solution s = new Solution(size, sigma);
+        Solution s = takeSolution(sigma);
         for (int q = 0; q < inputCount; q++) {
             s.value[q] = measuredValues[q];
             if (q >= sensorCount && constantSigma[q - sensorCount] == 0.0) {
@@ -854,7 +956,7 @@ public final class Reconciler {
             }
         }
         flowGuess = metered > 0 ? flowGuess / metered : 100.0;
-        Enthalpy e = new Enthalpy();
+        Enthalpy e = workspace.enthalpy;
         for (int j = 0; j < stateCount; j++) {
             s.value[inputCount + j] = flowGuess;
             if (!hasEnthalpyFunction(s, j) || !hasIf97State(e, j, measuredValues)) {
@@ -880,8 +982,6 @@ public final class Reconciler {
         }
         int nm = 0;
         int nu = 0;
-        s.measuredAt = new int[size];
-        s.unknownAt = new int[size];
         Arrays.fill(s.measuredAt, -1);
         Arrays.fill(s.unknownAt, -1);
         for (int z = 0; z < size; z++) {
@@ -891,8 +991,8 @@ public final class Reconciler {
                 s.unknownAt[z] = nu++;
             }
         }
-        s.measured = new int[nm];
-        s.unknown = new int[nu];
+        s.nm = nm;
+        s.nu = nu;
         for (int z = 0; z < size; z++) {
             if (s.measuredAt[z] >= 0) {
                 s.measured[s.measuredAt[z]] = z;
@@ -901,10 +1001,6 @@ public final class Reconciler {
                 s.unknown[s.unknownAt[z]] = z;
             }
         }
-        s.projection = new double[size];
-        s.test = new double[size];
-        s.observableUnknown = new boolean[nu];
-        s.sigmaUnknown = new double[nu];
         int nc = 0;
         for (int r = 0; r < rowCount; r++) {
             nc += s.activeRow[r] ? 1 : 0;
@@ -1087,26 +1183,26 @@ public final class Reconciler {
     }
 
     private void iterate(Solution s, double[] xm, int nc, int nm, int nu, Enthalpy e) {
-        int size = s.role.length;
-        double[] f = new double[nc];
-        double[][] jac = new double[nc][size];
-        double[] h = new double[stateCount];
-        double[] dhdp = new double[stateCount];
-        double[] dhdT = new double[stateCount];
-        double[] sigma = new double[nm];
+        ReconcilerWorkspace w = workspace;
+        double[] f = w.f;
+        double[][] jac = w.jac;
+        double[] h = w.h;
+        double[] dhdp = w.dhdp;
+        double[] dhdT = w.dhdT;
+        double[] sigma = w.sigma;
         for (int a = 0; a < nm; a++) {
             sigma[a] = s.sigma[s.measured[a]];
         }
-        double[] colScale = new double[nu];
-        double[][] bHat = new double[nc][nu];
-        double[][] aHat = new double[nc][nm];
-        double[] r = new double[nc];
-        double[] adjust = new double[nm];
+        double[] colScale = w.colScale;
+        double[][] bColumns = w.bColumns(nu);
+        double[][] aHat = w.aHat;
+        double[] r = w.r;
+        double[] adjust = w.adjust;
         if (nc == 0) {
             s.converged = true;
             s.status = ReconciliationResult.NO_REDUNDANCY;
             s.iterations = 0;
-            s.basis = new double[nm][0];
+            s.basis(nm, 0);
             markObservability(s, null, nu);
             return;
         }
@@ -1147,9 +1243,8 @@ public final class Reconciler {
                     ri += coef * adjust[a];
                 }
                 r[i] = ri;
-                double[] bi = bHat[i];
                 for (int u = 0; u < nu; u++) {
-                    bi[u] = ji[unknown[u]] * colScale[u];
+                    bColumns[u][i] = ji[unknown[u]] * colScale[u];
                 }
             }
             // Q is orthogonal, so the balances of G = Q₂ᵀ Â are of the order of the longest row of Â at most.
@@ -1161,18 +1256,21 @@ public final class Reconciler {
                 }
                 rowScale = Math.max(rowScale, Math.sqrt(n2));
             }
-            PivotedQr qb = new PivotedQr(bHat, nc, nu, RANK_TOLERANCE);
+            PivotedQr qb = w.qb;
+            qb.factorColumns(bColumns, nc, nu, RANK_TOLERANCE, 0.0);
             int rb = qb.rank;
-            double[] qr = r.clone();
+            double[] qr = w.qtr;
+            System.arraycopy(r, 0, qr, 0, nc);
             qb.applyQt(qr);
             int nr = nc - rb;
             // Gᵀ = Âᵀ Q₂, one column per remaining balance, from the columns of Q₂ (Q applied to unit
             // vectors): far fewer operations than Qᵀ Â in full, which only the last step needs.
             // by columns (one per remaining balance), the layout PivotedQr factors in
-            double[][] gt = new double[nr][nm];
-            double[] q2 = new double[nc];
+            double[][] gt = w.gt;
+            double[] q2 = w.qColumn;
             for (int k = 0; k < nr; k++) {
-                Arrays.fill(q2, 0.0);
+                Arrays.fill(gt[k], 0, nm, 0.0);
+                Arrays.fill(q2, 0, nc, 0.0);
                 q2[rb + k] = 1.0;
                 qb.applyQ(q2);
                 for (int i = 0; i < nc; i++) {
@@ -1186,23 +1284,24 @@ public final class Reconciler {
                     }
                 }
             }
-            double[] ev = new double[nm];
+            double[] ev = w.ev;
             int red = 0;
             PivotedQr qg = null;
             if (nr > 0 && nm > 0) {
-                qg = PivotedQr.ofColumns(gt, nm, nr, RANK_TOLERANCE, rowScale);
+                qg = w.qg;
+                qg.factorColumns(gt, nm, nr, RANK_TOLERANCE, rowScale);
                 red = qg.rank;
-                double[] w = new double[nm];
                 for (int k = 0; k < red; k++) {
-                    w[k] = -qr[rb + qg.perm[k]];
+                    ev[k] = -qr[rb + qg.perm[k]];
                 }
-                qg.solveUpperTransposed(w);
-                Arrays.fill(w, red, nm, 0.0);
-                qg.applyQ(w);
-                ev = w;
+                qg.solveUpperTransposed(ev);
+                Arrays.fill(ev, red, nm, 0.0);
+                qg.applyQ(ev);
+            } else {
+                Arrays.fill(ev, 0, nm, 0.0);
             }
             // Δy of the rows that fix the unknowns: R11 u = −Q₁ᵀ (r + Â e)
-            double[] t = new double[Math.max(nc, 1)];
+            double[] t = w.t;
             for (int i = 0; i < nc; i++) {
                 double v = r[i];
                 double[] row = aHat[i];
@@ -1237,13 +1336,14 @@ public final class Reconciler {
                 statistics(s, ev, qg, red, nm);
                 // Q₁ᵀ Â from the rb columns of Q₁, as Gᵀ above: rows of Â combined contiguously instead
                 // of Qᵀ applied to each of the nm columns of Â
-                double[][] q1a = new double[rb][nm];
-                double[] q1 = new double[nc];
+                double[][] q1a = w.q1a;
+                double[] q1 = w.qColumn;
                 for (int k = 0; k < rb; k++) {
-                    Arrays.fill(q1, 0.0);
+                    Arrays.fill(q1, 0, nc, 0.0);
                     q1[k] = 1.0;
                     qb.applyQ(q1, k);
                     double[] out = q1a[k];
+                    Arrays.fill(out, 0, nm, 0.0);
                     for (int i = 0; i < nc; i++) {
                         double qi = q1[i];
                         if (qi != 0.0) {
@@ -1286,11 +1386,11 @@ public final class Reconciler {
     }
 
     private void statistics(Solution s, double[] ev, PivotedQr qg, int red, int nm) {
-        s.basis = new double[nm][red];
+        s.basis(nm, red);
         if (qg != null) {
-            double[] col = new double[nm];
+            double[] col = workspace.basisColumn;
             for (int k = 0; k < red; k++) {
-                Arrays.fill(col, 0.0);
+                Arrays.fill(col, 0, nm, 0.0);
                 col[k] = 1.0;
                 qg.applyQ(col, k);
                 for (int a = 0; a < nm; a++) {
@@ -1315,13 +1415,14 @@ public final class Reconciler {
      * ŷ − y = −K (x̂ − x) with K = R₁₁⁻¹ Q₁ᵀ Â and cov(x̂) = S^{1/2} (I − P) S^{1/2}.
      *
      * @param q1a Q₁ᵀ Â by rows: {@code q1a[i][a]} is column i of Q (i below the rank of B) times
-     *            column a of Â
+     *            column a of Â; overwritten by K
      */
     private void unknownStatistics(Solution s, PivotedQr qb, double[][] q1a, double[] colScale, int nm, int nu) {
         int rb = qb.rank;
         markObservability(s, qb, nu);
-        double[] k = new double[Math.max(rb, 1)];
-        double[][] kRows = new double[rb][nm];
+        double[] k = workspace.kColumn;
+        // K column by column in place of Q₁ᵀ Â: column a is read whole before it is written
+        double[][] kRows = q1a;
         for (int a = 0; a < nm; a++) {
             for (int i = 0; i < rb; i++) {
                 k[i] = q1a[i][a];
@@ -1332,7 +1433,7 @@ public final class Reconciler {
             }
         }
         int red = s.redundancy;
-        double[] dots = new double[red];
+        double[] dots = workspace.dots;
         for (int i = 0; i < rb; i++) {
             int u = qb.perm[i];
             if (!s.observableUnknown[u]) {
@@ -1343,7 +1444,7 @@ public final class Reconciler {
                 total += kRows[i][a] * kRows[i][a];
             }
             // basis is held by rows: accumulate all red dot products in one pass over a
-            Arrays.fill(dots, 0.0);
+            Arrays.fill(dots, 0, red, 0.0);
             double[] ki = kRows[i];
             for (int a = 0; a < nm; a++) {
                 double ka = ki[a];
@@ -1366,22 +1467,22 @@ public final class Reconciler {
         }
         int rb = qb.rank;
         int free = nu - rb;
-        // N = R11⁻¹ R12: a pivot unknown coupled to a free one is not determined either.
-        double[][] n = new double[free][];
+        // N = R11⁻¹ R12: a pivot unknown coupled to a free one is not determined either. One column
+        // of N at a time; the coupling of pivot i is the "or" over the columns, in any order.
+        boolean[] coupled = workspace.coupled;
+        Arrays.fill(coupled, 0, rb, false);
+        double[] col = workspace.nullColumn;
         for (int c = 0; c < free; c++) {
-            double[] col = new double[Math.max(rb, 1)];
             for (int i = 0; i < rb; i++) {
                 col[i] = qb.r(i, rb + c);
             }
             qb.solveUpper(col);
-            n[c] = col;
+            for (int i = 0; i < rb; i++) {
+                coupled[i] |= Math.abs(col[i]) > NULL_SPACE_TOLERANCE;
+            }
         }
         for (int i = 0; i < rb; i++) {
-            boolean coupled = false;
-            for (int c = 0; c < free; c++) {
-                coupled |= Math.abs(n[c][i]) > NULL_SPACE_TOLERANCE;
-            }
-            s.observableUnknown[qb.perm[i]] = !coupled;
+            s.observableUnknown[qb.perm[i]] = !coupled[i];
         }
     }
 }

@@ -25,7 +25,9 @@ import org.steamtally.calc.plant.UnitDescription;
  * The closure checks always come from the raw values, since they check the measurements; the raw
  * cycle figures are kept beside the chosen ones as {@code cycle_raw}.
  *
- * <p>Not thread-safe, like the {@link CycleModel} it holds: one instance per thread.
+ * <p>Not thread-safe, like the {@link CycleModel} and the {@link Reconciler} it holds (which reuses
+ * its working arrays from call to call): one instance per thread at a time. No record depends on the
+ * snapshots evaluated before it, and every record is the caller's own.
  */
 public final class ReconcilingEvaluator {
 
