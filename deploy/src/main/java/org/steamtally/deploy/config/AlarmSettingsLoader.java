@@ -418,7 +418,7 @@ public final class AlarmSettingsLoader {
                 AlarmKind kind = AlarmKind.ofId(id).orElse(null);
                 if (kind == null) {
                     problem(idNode, "alarm id \"" + id + "\" names no kind of alarm (ids start with closure:, "
-                            + "reconciliation:, suspect:, stale:, range:, invalid:state:, invalid:component:, frozen:, erratic:)");
+                            + "reconciliation:, suspect:, stale:, range:, invalid:state:, invalid:component:, frozen:, erratic:, silent:)");
                     continue;
                 }
                 if (!checkSubject(idNode, id, kind)) {
@@ -457,6 +457,8 @@ public final class AlarmSettingsLoader {
                     yield "its ids are invalid:state:<state id> and invalid:component:<component id>";
                 }
                 case CLOSURE -> closureMissing(subject);
+                case SILENT_UNIT -> id.equals(AlarmKind.SILENT_UNIT_ID) ? null
+                        : "the one silent-unit alarm of a unit is \"" + AlarmKind.SILENT_UNIT_ID + "\"";
             };
             if (missing != null) {
                 problem(at, "alarm id \"" + id + "\": " + missing);
