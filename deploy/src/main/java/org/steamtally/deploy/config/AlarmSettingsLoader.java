@@ -191,6 +191,7 @@ public final class AlarmSettingsLoader {
                     }
                 }
             }
+            checkSilentBeforeStale(entries, kinds);
             Duration maxShelve = AlarmSettings.MAX_SHELVE_DEFAULT;
             if (entries.containsKey(MAX_SHELVE)) {
                 Duration d = duration(entries.get(MAX_SHELVE), "alarms.max_shelve", false);
@@ -435,6 +436,26 @@ public final class AlarmSettingsLoader {
                     overrides.put(id, d);
                 }
             }
+        }
+
+        /**
+         * The silent-unit alarm suppresses the stale alarms only once it is raised: with a longer
+         * on-delay than theirs they would all be raised first, the flood it is there to prevent.
+         */
+        private void checkSilentBeforeStale(Map<String, Node> entries, Map<AlarmKind, AlarmDefinition> kinds) {
+            AlarmDefinition silent = kinds.get(AlarmKind.SILENT_UNIT);
+            AlarmDefinition stale = kinds.get(AlarmKind.STALE_SENSOR);
+            if (silent.enabled() && stale.enabled() && silent.onDelay().compareTo(stale.onDelay()) > 0) {
+                Node at = entries.getOrDefault(AlarmKind.SILENT_UNIT.key(), entries.get(AlarmKind.STALE_SENSOR.key()));
+                problem(at, "alarms.silent_unit: on_delay " + millis(silent.onDelay()) + " is longer than the on_delay "
+                        + millis(stale.onDelay()) + " of alarms.stale_sensor, so a silent unit's stale alarms would be"
+                        + " raised before it suppresses them; give silent_unit an on_delay of at most "
+                        + millis(stale.onDelay()));
+            }
+        }
+
+        private static String millis(Duration d) {
+            return d.toMillis() % 1000 == 0 ? d.toSeconds() + "s" : d.toMillis() + "ms";
         }
 
         /** Whether the alarm id's subject exists in the file; a problem at the id when not. */
