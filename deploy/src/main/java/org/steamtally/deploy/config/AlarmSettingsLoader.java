@@ -439,18 +439,25 @@ public final class AlarmSettingsLoader {
         }
 
         /**
-         * The silent-unit alarm suppresses the stale alarms only once it is raised: with a longer
-         * on-delay than theirs they would all be raised first, the flood it is there to prevent.
+         * The silent-unit alarm suppresses the stale and calculation-invalid alarms only once it is
+         * raised: with a longer on-delay than theirs they would all be raised first, the flood it is
+         * there to prevent.
          */
         private void checkSilentBeforeStale(Map<String, Node> entries, Map<AlarmKind, AlarmDefinition> kinds) {
             AlarmDefinition silent = kinds.get(AlarmKind.SILENT_UNIT);
-            AlarmDefinition stale = kinds.get(AlarmKind.STALE_SENSOR);
-            if (silent.enabled() && stale.enabled() && silent.onDelay().compareTo(stale.onDelay()) > 0) {
-                Node at = entries.getOrDefault(AlarmKind.SILENT_UNIT.key(), entries.get(AlarmKind.STALE_SENSOR.key()));
-                problem(at, "alarms.silent_unit: on_delay " + millis(silent.onDelay()) + " is longer than the on_delay "
-                        + millis(stale.onDelay()) + " of alarms.stale_sensor, so a silent unit's stale alarms would be"
-                        + " raised before it suppresses them; give silent_unit an on_delay of at most "
-                        + millis(stale.onDelay()));
+            if (!silent.enabled()) {
+                return;
+            }
+            for (AlarmKind kind : List.of(AlarmKind.STALE_SENSOR, AlarmKind.CALCULATION_INVALID)) {
+                AlarmDefinition other = kinds.get(kind);
+                if (other.enabled() && silent.onDelay().compareTo(other.onDelay()) > 0) {
+                    Node at = entries.getOrDefault(AlarmKind.SILENT_UNIT.key(), entries.get(kind.key()));
+                    problem(at, "alarms.silent_unit: on_delay " + millis(silent.onDelay()) + " is longer than the"
+                            + " on_delay " + millis(other.onDelay()) + " of alarms." + kind.key() + ", so a silent"
+                            + " unit's " + kind.key() + " alarms would be raised before it suppresses them; give"
+                            + " silent_unit an on_delay of at most " + millis(other.onDelay()));
+                    return;
+                }
             }
         }
 

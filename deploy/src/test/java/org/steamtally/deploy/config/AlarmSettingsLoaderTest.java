@@ -152,13 +152,17 @@ class AlarmSettingsLoaderTest {
         PlantDescriptionException e = assertThrows(PlantDescriptionException.class,
                 () -> AlarmSettingsLoader.parse("x.yaml", base + "alarms:\n  stale_sensor: {on_delay: 2s}\n"));
         assertTrue(e.getMessage().contains("alarms.silent_unit: on_delay 5s is longer than the on_delay 2s of"
-                + " alarms.stale_sensor, so a silent unit's stale alarms would be raised before it suppresses them;"
+                + " alarms.stale_sensor, so a silent unit's stale_sensor alarms would be raised before it suppresses them;"
                 + " give silent_unit an on_delay of at most 2s"), e.getMessage());
         AlarmSettings s = AlarmSettingsLoader.parse("x.yaml",
                 base + "alarms:\n  stale_sensor: {on_delay: 2s}\n  silent_unit: {on_delay: 2s}\n");
         assertEquals(Duration.ofSeconds(2), s.definition(AlarmKind.SILENT_UNIT).onDelay());
         AlarmSettingsLoader.parse("x.yaml",
                 base + "alarms:\n  stale_sensor: {on_delay: 2s}\n  silent_unit: {enabled: false}\n");
+        e = assertThrows(PlantDescriptionException.class,
+                () -> AlarmSettingsLoader.parse("x.yaml", base + "alarms:\n  calculation_invalid: {on_delay: 500ms}\n"));
+        assertTrue(e.getMessage().contains("on_delay 5s is longer than the on_delay 500ms of alarms.calculation_invalid"),
+                e.getMessage());
     }
 
     @Test
