@@ -49,6 +49,9 @@ final class Alarm {
     boolean listed;
     String reason;
     Snapshot.SensorStatus status;
+    /** For {@link AlarmKind#SILENT_UNIT}: the sensors without a good value, of how many. */
+    int silentSensors;
+    int sensorCount;
     /** The text of a restored record, until a new input arrives. */
     String restoredText;
 

@@ -23,6 +23,8 @@ import java.util.Objects;
  * <li>frozen sensor: seconds unchanged, deadband in seconds;</li>
  * <li>erratic sensor: a factor on the scatter ratio's quantile (1.0 alarms at it), deadband in the
  *     same factor;</li>
+ * <li>silent unit: the share of the unit's sensors without a good value, above 0 and at most 1
+ *     (1.0: all of them), deadband in the same share;</li>
  * <li>stale sensor and calculation invalid: yes/no conditions, limit and deadband 0.</li>
  * </ul>
  *
@@ -95,6 +97,10 @@ public record AlarmDefinition(boolean enabled, AlarmPriority priority, Duration 
         if (kind == AlarmKind.OUT_OF_RANGE && !(deadband < 0.5)) {
             throw new IllegalArgumentException(where + ": the out-of-range deadband is a fraction of the range's span"
                     + " and must be below 0.5, was " + deadband);
+        }
+        if (kind == AlarmKind.SILENT_UNIT && limit > 1.0) {
+            throw new IllegalArgumentException(where + ": the silent-unit limit is a share of the unit's sensors"
+                    + " and must be at most 1 (all of them), was " + limit);
         }
     }
 }

@@ -57,6 +57,18 @@ import org.steamtally.calc.signal.SignalVerdict;
  * value for the range check, no reconciliation) keep the alarm as it is and cancel any change under
  * way; the stale and calculation-invalid alarms say why.
  *
+ * <p>One cause, one alarm: when the unit as a whole goes silent (its {@code silent:unit} alarm's
+ * condition is active: the limit's share of the sensors, by default all, without a good value), the
+ * stale-sensor and calculation-invalid alarms, which then only repeat that cause, are suppressed by
+ * design like a suppressed kind, and return to the state their condition calls for when the unit
+ * reports again. To keep the journal from a flood, only the alarms an operator can see change with
+ * an event: one that was annunciated (B to D) goes to F with a {@code suppress} event, one that
+ * comes back active is annunciated afresh with an {@code end_suppression} event; the moves between
+ * A and F are kept in the alarms' states and records but journaled once, by the silent-unit alarm's
+ * own events. When the unit reports again, a suppressed alarm whose input has already returned
+ * clears at once, its off-delay cut short: the delay keeps an annunciated alarm from chattering, and
+ * this one was not annunciated.
+ *
  * <p>Not thread-safe: one engine per unit, called from one thread (the unit's evaluation), operator
  * actions included. An evaluation without a change of state allocates nothing but the instant.
  */
@@ -85,6 +97,12 @@ public final class AlarmEngine {
     /** The same alarms as {@code byId}, for loops without an iterator. */
     private final List<Alarm> all = new ArrayList<>();
     private final EnumMap<AlarmKind, String> suppressed = new EnumMap<>(AlarmKind.class);
+    private final Alarm silent;
+    /** Whether the stale-sensor and calculation-invalid alarms are suppressed because the unit is silent. */
+    private boolean silenced;
+
+    /** The suppression reason of the alarms a silent unit suppresses; restore tells them apart by it. */
+    public static final String SILENT_UNIT_REASON = "the unit is silent (alarm " + AlarmKind.SILENT_UNIT_ID + ")";
 
     private int epoch;
     /** The events of the call under way; null until the first. */
@@ -131,6 +149,7 @@ public final class AlarmEngine {
             frozen[i] = create(AlarmKind.FROZEN_SENSOR, sensors[i].id(), false, now);
             erratic[i] = create(AlarmKind.ERRATIC_SENSOR, sensors[i].id(), false, now);
         }
+        silent = create(AlarmKind.SILENT_UNIT, unitId, false, now);
     }
 
     /**
@@ -158,7 +177,10 @@ public final class AlarmEngine {
 
     /** The id of the alarm of a kind about a subject (closure, sensor, state or component id). */
     public static String alarmId(AlarmKind kind, String subject) {
-        return kind == AlarmKind.GLOBAL_TEST ? AlarmKind.GLOBAL_TEST_ID : kind.idPrefix() + subject;
+        if (kind == AlarmKind.GLOBAL_TEST) {
+            return AlarmKind.GLOBAL_TEST_ID;
+        }
+        return kind == AlarmKind.SILENT_UNIT ? AlarmKind.SILENT_UNIT_ID : kind.idPrefix() + subject;
     }
 
     /** The id of the calculation-invalid alarm of a state. */
@@ -193,7 +215,7 @@ public final class AlarmEngine {
             suspects.put(subject, alarm);
             suspectList.add(alarm);
         }
-        if (suppressed.containsKey(kind)) {
+        if (suppressionOf(kind) != null) {
             // Its first state, not a transition: an alarm of a suppressed kind begins suppressed.
             alarm.state = AlarmState.SUPPRESSED_BY_DESIGN;
         }
@@ -228,7 +250,7 @@ public final class AlarmEngine {
             throw new AlarmActionException("unit " + unitId + " has no alarm \"" + alarmId + "\" (ids are "
                     + "closure:<closure id>, reconciliation:global, suspect:<sensor>, stale:<sensor>, "
                     + "range:<sensor>, invalid:state:<state>, invalid:component:<component>, frozen:<sensor>, "
-                    + "erratic:<sensor>; a closure's alarm exists"
+                    + "erratic:<sensor>, " + AlarmKind.SILENT_UNIT_ID + "; a closure's alarm exists"
                 + " once the closure has been computed; a disabled alarm has none)");
         }
         return alarm;
@@ -266,6 +288,8 @@ public final class AlarmEngine {
         Instant now = clock.instant();
         long nowMs = now.toEpochMilli();
         expire(now);
+        // Before the sensors: a unit that falls silent suppresses their alarms before they are raised.
+        silentUnit(snapshot.status(), now, nowMs);
         sensors(snapshot, now, nowMs);
         closures(result.closure(), now, nowMs);
         validity(result, now, nowMs);
@@ -276,6 +300,10 @@ public final class AlarmEngine {
             for (int k = 0; k < suspectList.size(); k++) {
                 suspectList.get(k).hold(nowMs);
             }
+        }
+        // After them: the suppressed alarms whose inputs are back have seen it before they return.
+        if (silenced && (silent == null || !silent.condition)) {
+            endSilence(now);
         }
         return drain();
     }
@@ -336,6 +364,85 @@ public final class AlarmEngine {
             }
         }
         return drain();
+    }
+
+    private void silentUnit(Snapshot.SensorStatus[] status, Instant now, long nowMs) {
+        if (silent == null || status.length == 0) {
+            return;
+        }
+        int n = 0;
+        for (Snapshot.SensorStatus s : status) {
+            if (s != Snapshot.SensorStatus.GOOD) {
+                n++;
+            }
+        }
+        double share = (double) n / status.length;
+        AlarmDefinition d = silent.definition;
+        silent.silentSensors = n;
+        silent.sensorCount = status.length;
+        silent.value(share, d.limit());
+        // Not Alarm.above: with the default limit 1.0 and no deadband, "above 1.0 less nothing" would
+        // never hold, and the share cannot exceed 1.
+        boolean on = share >= (silent.pending ? d.limit() - d.deadband() : d.limit());
+        if (silent.observe(nowMs, on)) {
+            conditionChanged(silent, now);
+        }
+        if (silent.condition && !silenced) {
+            startSilence(now);
+        }
+    }
+
+    /** Whether the silent-unit alarm suppresses alarms of this kind. */
+    private static boolean silencedKind(AlarmKind kind) {
+        return kind == AlarmKind.STALE_SENSOR || kind == AlarmKind.CALCULATION_INVALID;
+    }
+
+    /** Why alarms of a kind are suppressed by design now; null when they are not. */
+    private String suppressionOf(AlarmKind kind) {
+        String reason = suppressed.get(kind);
+        if (reason == null && silenced && silencedKind(kind)) {
+            return SILENT_UNIT_REASON;
+        }
+        return reason;
+    }
+
+    private void startSilence(Instant now) {
+        silenced = true;
+        for (int k = 0; k < all.size(); k++) {
+            Alarm a = all.get(k);
+            if (!silencedKind(a.kind) || !a.state.followsCondition()) {
+                continue;
+            }
+            if (a.state == AlarmState.NORMAL) {
+                // Not shown before or after: kept in the state, journaled by the silent-unit alarm.
+                a.state = AlarmState.SUPPRESSED_BY_DESIGN;
+                a.stateSince = now;
+            } else {
+                transition(a, AlarmState.SUPPRESSED_BY_DESIGN, AlarmStimulus.SUPPRESS, now, null, SILENT_UNIT_REASON);
+            }
+        }
+    }
+
+    private void endSilence(Instant now) {
+        silenced = false;
+        for (int k = 0; k < all.size(); k++) {
+            Alarm a = all.get(k);
+            if (!silencedKind(a.kind) || a.state != AlarmState.SUPPRESSED_BY_DESIGN || suppressed.containsKey(a.kind)) {
+                continue;
+            }
+            if (a.condition && !a.pending) {
+                // Its input is back and its off-delay running: it was not annunciated, so nothing can chatter.
+                a.condition = false;
+                a.pendingSinceMs = now.toEpochMilli();
+            }
+            AlarmState to = byCondition(a);
+            if (to == AlarmState.NORMAL) {
+                a.state = to;
+                a.stateSince = now;
+            } else {
+                transition(a, to, AlarmStimulus.END_SUPPRESSION, now, null, null);
+            }
+        }
     }
 
     private void sensors(Snapshot snapshot, Instant now, long nowMs) {
@@ -507,7 +614,7 @@ public final class AlarmEngine {
 
     /** The state an alarm returns to from E, F or G. */
     private AlarmState byCondition(Alarm a) {
-        if (suppressed.containsKey(a.kind)) {
+        if (suppressionOf(a.kind) != null) {
             return AlarmState.SUPPRESSED_BY_DESIGN;
         }
         return a.condition ? AlarmState.ACTIVE_UNACKNOWLEDGED : AlarmState.NORMAL;
@@ -723,7 +830,11 @@ public final class AlarmEngine {
         }
         for (Alarm a : byId.values()) {
             if (a.kind == kind && a.state == AlarmState.SUPPRESSED_BY_DESIGN) {
-                transition(a, byCondition(a), AlarmStimulus.END_SUPPRESSION, now, null, null);
+                AlarmState to = byCondition(a);
+                if (to != AlarmState.SUPPRESSED_BY_DESIGN) {
+                    // Else a silent unit still suppresses it: it stays, and nothing changed.
+                    transition(a, to, AlarmStimulus.END_SUPPRESSION, now, null, null);
+                }
             }
         }
         return drain();
@@ -735,7 +846,7 @@ public final class AlarmEngine {
     public List<AlarmRecord> alarms() {
         List<AlarmRecord> out = new ArrayList<>(byId.size());
         for (Alarm a : byId.values()) {
-            out.add(a.record(Optional.ofNullable(suppressed.get(a.kind))));
+            out.add(a.record(Optional.ofNullable(suppressionOf(a.kind))));
         }
         return out;
     }
@@ -743,7 +854,7 @@ public final class AlarmEngine {
     /** One alarm, when the unit has it. */
     public Optional<AlarmRecord> alarm(String alarmId) {
         Alarm a = byId.get(alarmId);
-        return a == null ? Optional.empty() : Optional.of(a.record(Optional.ofNullable(suppressed.get(a.kind))));
+        return a == null ? Optional.empty() : Optional.of(a.record(Optional.ofNullable(suppressionOf(a.kind))));
     }
 
     /** The whole state, as plain values for the store. */
@@ -789,9 +900,16 @@ public final class AlarmEngine {
             a.limit = r.limit().orElse(0.0);
             a.restoredText = r.text();
             a.suspect = r.suspect().orElse(null);
-            if (r.suppression().isPresent()) {
+            if (r.suppression().isPresent()
+                    && !(silencedKind(a.kind) && r.suppression().get().equals(SILENT_UNIT_REASON))) {
                 suppressed.putIfAbsent(a.kind, r.suppression().get());
             }
+        }
+        // The silent-unit suppression follows its alarm's restored condition, whatever the other records say.
+        if (silent != null && silent.condition) {
+            startSilence(now);
+        } else {
+            endSilence(now);
         }
         events = null;
         return leftOut;

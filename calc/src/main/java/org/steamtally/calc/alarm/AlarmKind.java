@@ -32,10 +32,20 @@ public enum AlarmKind {
      * one) is at or above the limit, a factor on the scatter quantile: id {@code erratic:<sensor id>}.
      * From the signal check, docs/DETECTION.md.
      */
-    ERRATIC_SENSOR("erratic:");
+    ERRATIC_SENSOR("erratic:"),
+    /**
+     * The unit as a whole is silent: at least the limit's share of its sensors (a fraction, 1.0 for
+     * all) has no good value within its max age, as when its gateway or the broker link is down. One
+     * alarm per unit, id {@code silent:unit}; while it is active the unit's stale-sensor and
+     * calculation-invalid alarms are suppressed by design, so that one cause raises one alarm.
+     */
+    SILENT_UNIT("silent:");
 
     /** The id of the one global-test alarm of a unit. */
     public static final String GLOBAL_TEST_ID = "reconciliation:global";
+
+    /** The id of the one silent-unit alarm of a unit. */
+    public static final String SILENT_UNIT_ID = "silent:unit";
 
     private final String idPrefix;
 
@@ -66,7 +76,7 @@ public enum AlarmKind {
     /** Whether its condition is a value against a limit, so that a limit and a deadband apply. */
     public boolean hasLimit() {
         return this == CLOSURE || this == GLOBAL_TEST || this == SUSPECT_SENSOR || this == FROZEN_SENSOR
-                || this == ERRATIC_SENSOR;
+                || this == ERRATIC_SENSOR || this == SILENT_UNIT;
     }
 
     /** Whether a deadband applies (the limit kinds, and the range check, whose limits are the sensor's). */

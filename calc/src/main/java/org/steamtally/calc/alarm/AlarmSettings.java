@@ -75,6 +75,17 @@ public record AlarmSettings(Map<AlarmKind, AlarmDefinition> kinds, Map<String, A
     public static final AlarmDefinition ERRATIC_DEFAULT = new AlarmDefinition(true, AlarmPriority.LOW,
             Duration.ofSeconds(5), Duration.ofSeconds(30), 1.0, 0.1);
 
+    /**
+     * Silent unit: every sensor without a good value (share 1.0), no deadband, so one good reading
+     * ends it. The on-delay equals the stale alarms' own, so the unit's alarm is raised in the same
+     * snapshot in which they would be, and they are suppressed before they are annunciated; a longer
+     * one would let them raise first. Off-delay 10 s, the longest of the stale and calculation-invalid
+     * off-delays, so that the alarms it suppressed have settled when it clears. Medium: every figure
+     * of the unit is gone, but nothing in the plant is known to be wrong.
+     */
+    public static final AlarmDefinition SILENT_UNIT_DEFAULT = new AlarmDefinition(true, AlarmPriority.MEDIUM,
+            Duration.ofSeconds(5), Duration.ofSeconds(10), 1.0, 0.0);
+
     /** The longest shelf by default: one shift, so that the next crew sees what was set aside. */
     public static final Duration MAX_SHELVE_DEFAULT = Duration.ofHours(8);
 
@@ -107,7 +118,7 @@ public record AlarmSettings(Map<AlarmKind, AlarmDefinition> kinds, Map<String, A
         Map<String, AlarmDefinition> byId = new LinkedHashMap<>(overrides);
         byId.forEach((id, d) -> {
             AlarmKind kind = AlarmKind.ofId(id).orElseThrow(() -> new IllegalArgumentException("alarm id \"" + id
-                    + "\" does not start with a kind's prefix (closure:, reconciliation:, suspect:, stale:, range:, invalid:, frozen:, erratic:)"));
+                    + "\" does not start with a kind's prefix (closure:, reconciliation:, suspect:, stale:, range:, invalid:, frozen:, erratic:, silent:)"));
             d.checkFor(kind, "alarm " + id);
         });
         overrides = java.util.Collections.unmodifiableMap(byId);
@@ -128,6 +139,7 @@ public record AlarmSettings(Map<AlarmKind, AlarmDefinition> kinds, Map<String, A
         kinds.put(AlarmKind.CALCULATION_INVALID, CALCULATION_INVALID_DEFAULT);
         kinds.put(AlarmKind.FROZEN_SENSOR, FROZEN_DEFAULT);
         kinds.put(AlarmKind.ERRATIC_SENSOR, ERRATIC_DEFAULT);
+        kinds.put(AlarmKind.SILENT_UNIT, SILENT_UNIT_DEFAULT);
         return kinds;
     }
 

@@ -54,6 +54,7 @@ final class AlarmText {
             case CALCULATION_INVALID -> invalid(a);
             case FROZEN_SENSOR -> frozen(a);
             case ERRATIC_SENSOR -> erratic(a);
+            case SILENT_UNIT -> silent(a);
         };
     }
 
@@ -149,5 +150,19 @@ final class AlarmText {
         }
         return name + (a.pending ? " is erratic" : " scatters normally") + ": successive-difference scatter "
                 + number(a.value) + " times its normal (limit " + number(a.limit) + ")";
+    }
+
+    private static String silent(Alarm a) {
+        String name = "unit " + a.subject;
+        if (a.sensorCount == 0) {
+            return name + ": no snapshot yet";
+        }
+        String share = " (limit: a share of " + number(a.limit) + " of its sensors)";
+        if (a.pending) {
+            return name + " is silent: no good reading from " + a.silentSensors + " of " + a.sensorCount
+                    + " sensors within their max age" + share;
+        }
+        return name + " reports: " + a.silentSensors + " of " + a.sensorCount
+                + " sensors without a good reading within their max age" + share;
     }
 }

@@ -191,6 +191,7 @@ public final class AlarmSettingsLoader {
                     }
                 }
             }
+            checkSilentBeforeStale(entries, kinds);
             Duration maxShelve = AlarmSettings.MAX_SHELVE_DEFAULT;
             if (entries.containsKey(MAX_SHELVE)) {
                 Duration d = duration(entries.get(MAX_SHELVE), "alarms.max_shelve", false);
@@ -418,7 +419,7 @@ public final class AlarmSettingsLoader {
                 AlarmKind kind = AlarmKind.ofId(id).orElse(null);
                 if (kind == null) {
                     problem(idNode, "alarm id \"" + id + "\" names no kind of alarm (ids start with closure:, "
-                            + "reconciliation:, suspect:, stale:, range:, invalid:state:, invalid:component:, frozen:, erratic:)");
+                            + "reconciliation:, suspect:, stale:, range:, invalid:state:, invalid:component:, frozen:, erratic:, silent:)");
                     continue;
                 }
                 if (!checkSubject(idNode, id, kind)) {
@@ -435,6 +436,33 @@ public final class AlarmSettingsLoader {
                     overrides.put(id, d);
                 }
             }
+        }
+
+        /**
+         * The silent-unit alarm suppresses the stale and calculation-invalid alarms only once it is
+         * raised: with a longer on-delay than theirs they would all be raised first, the flood it is
+         * there to prevent.
+         */
+        private void checkSilentBeforeStale(Map<String, Node> entries, Map<AlarmKind, AlarmDefinition> kinds) {
+            AlarmDefinition silent = kinds.get(AlarmKind.SILENT_UNIT);
+            if (!silent.enabled()) {
+                return;
+            }
+            for (AlarmKind kind : List.of(AlarmKind.STALE_SENSOR, AlarmKind.CALCULATION_INVALID)) {
+                AlarmDefinition other = kinds.get(kind);
+                if (other.enabled() && silent.onDelay().compareTo(other.onDelay()) > 0) {
+                    Node at = entries.getOrDefault(AlarmKind.SILENT_UNIT.key(), entries.get(kind.key()));
+                    problem(at, "alarms.silent_unit: on_delay " + millis(silent.onDelay()) + " is longer than the"
+                            + " on_delay " + millis(other.onDelay()) + " of alarms." + kind.key() + ", so a silent"
+                            + " unit's " + kind.key() + " alarms would be raised before it suppresses them; give"
+                            + " silent_unit an on_delay of at most " + millis(other.onDelay()));
+                    return;
+                }
+            }
+        }
+
+        private static String millis(Duration d) {
+            return d.toMillis() % 1000 == 0 ? d.toSeconds() + "s" : d.toMillis() + "ms";
         }
 
         /** Whether the alarm id's subject exists in the file; a problem at the id when not. */
@@ -457,6 +485,8 @@ public final class AlarmSettingsLoader {
                     yield "its ids are invalid:state:<state id> and invalid:component:<component id>";
                 }
                 case CLOSURE -> closureMissing(subject);
+                case SILENT_UNIT -> id.equals(AlarmKind.SILENT_UNIT_ID) ? null
+                        : "the one silent-unit alarm of a unit is \"" + AlarmKind.SILENT_UNIT_ID + "\"";
             };
             if (missing != null) {
                 problem(at, "alarm id \"" + id + "\": " + missing);

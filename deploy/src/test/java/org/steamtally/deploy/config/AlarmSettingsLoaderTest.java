@@ -78,7 +78,11 @@ class AlarmSettingsLoaderTest {
         assertEquals(Duration.ofMinutes(2),
                 s.definitionOf(AlarmKind.GLOBAL_TEST, AlarmKind.GLOBAL_TEST_ID).offDelay());
         assertEquals(3.0, s.definitionOf(AlarmKind.SUSPECT_SENSOR, "suspect:FT-1").limit());
-        assertEquals(7, s.overrides().size());
+        assertEquals(AlarmSettings.SILENT_UNIT_DEFAULT.withLimit(0.9).withDeadband(0.2)
+                .withDelays(Duration.ZERO, Duration.ofSeconds(10)).withPriority(AlarmPriority.HIGH),
+                s.definition(AlarmKind.SILENT_UNIT));
+        assertEquals(Duration.ofMinutes(1), s.definitionOf(AlarmKind.SILENT_UNIT, AlarmKind.SILENT_UNIT_ID).offDelay());
+        assertEquals(8, s.overrides().size());
     }
 
     @Test
@@ -90,7 +94,7 @@ class AlarmSettingsLoaderTest {
     void badSectionFailsWithFileLineAndColumnOfEachProblem() throws Exception {
         Path file = resource("bad/alarms-bad-settings.yaml");
         PlantDescriptionException e = assertThrows(PlantDescriptionException.class, () -> AlarmSettingsLoader.load(file));
-        assertEquals(14, e.problems().size(), e.getMessage());
+        assertEquals(16, e.problems().size(), e.getMessage());
         List<String> lines = Files.readAllLines(file);
         int closureLine = lines.indexOf("  closure: {limit: 3, deadband: 3.5}  # expect: alarms.closure: deadband 3.5"
                 + " must be below the limit 3.0") + 1;
@@ -140,6 +144,25 @@ class AlarmSettingsLoaderTest {
         assertTrue(e.getMessage().contains("warm_up of alarms.signal_check must be a whole number of readings"),
                 e.getMessage());
         assertTrue(e.getMessage().contains("10min"), e.getMessage());
+    }
+
+    @Test
+    void silentUnitAlarmSlowerThanTheStaleAlarmsIsRefusedNamingBothDelays() throws Exception {
+        String base = Files.readString(resource("valid-minimal.yaml"));
+        PlantDescriptionException e = assertThrows(PlantDescriptionException.class,
+                () -> AlarmSettingsLoader.parse("x.yaml", base + "alarms:\n  stale_sensor: {on_delay: 2s}\n"));
+        assertTrue(e.getMessage().contains("alarms.silent_unit: on_delay 5s is longer than the on_delay 2s of"
+                + " alarms.stale_sensor, so a silent unit's stale_sensor alarms would be raised before it suppresses them;"
+                + " give silent_unit an on_delay of at most 2s"), e.getMessage());
+        AlarmSettings s = AlarmSettingsLoader.parse("x.yaml",
+                base + "alarms:\n  stale_sensor: {on_delay: 2s}\n  silent_unit: {on_delay: 2s}\n");
+        assertEquals(Duration.ofSeconds(2), s.definition(AlarmKind.SILENT_UNIT).onDelay());
+        AlarmSettingsLoader.parse("x.yaml",
+                base + "alarms:\n  stale_sensor: {on_delay: 2s}\n  silent_unit: {enabled: false}\n");
+        e = assertThrows(PlantDescriptionException.class,
+                () -> AlarmSettingsLoader.parse("x.yaml", base + "alarms:\n  calculation_invalid: {on_delay: 500ms}\n"));
+        assertTrue(e.getMessage().contains("on_delay 5s is longer than the on_delay 500ms of alarms.calculation_invalid"),
+                e.getMessage());
     }
 
     @Test
@@ -220,7 +243,8 @@ class AlarmSettingsLoaderTest {
                 AlarmKind.OUT_OF_RANGE, "medium 5s 10s 0.0 0.02",
                 AlarmKind.CALCULATION_INVALID, "low 10s 10s 0.0 0.0",
                 AlarmKind.FROZEN_SENSOR, "medium 0s 10s 60.0 0.0",
-                AlarmKind.ERRATIC_SENSOR, "low 5s 30s 1.0 0.1");
+                AlarmKind.ERRATIC_SENSOR, "low 5s 30s 1.0 0.1",
+                AlarmKind.SILENT_UNIT, "medium 5s 10s 1.0 0.0");
         documented.forEach((kind, row) -> {
             AlarmDefinition d = AlarmSettings.DEFAULTS.definition(kind);
             assertEquals(row, d.priority().key() + " " + d.onDelay().toSeconds() + "s " + d.offDelay().toSeconds() + "s "
