@@ -52,6 +52,13 @@ public final class WindowMeanEvaluator {
     private final int window;
     private final double[][] values;
     private final boolean[][] good;
+    /** Each held snapshot's timestamp, ms since the epoch, in the same ring as {@link #values}. */
+    private final long[] timeMs;
+    /** Whether the sensor takes part in a balance: only those decide whether the window is representative. */
+    private final boolean[] inBalance;
+    /** Per sensor, scratch of one evaluation: the sum and count of its good values in the window. */
+    private final double[] sums;
+    private final int[] counts;
     /**
      * The one compiled evaluator: a compiled evaluator is large (its cycle model and
      * reconciliation, about 65 kB) and each compilation costs CPU (0.3 to 0.7 ms warm, far more
@@ -64,6 +71,7 @@ public final class WindowMeanEvaluator {
     private int meanCount;
     private int next;
     private int held;
+    private long meansEvaluated;
 
     private WindowMeanEvaluator(UnitDescription unit, int window, ReconcilingEvaluator evaluator) {
         this.unit = unit;
@@ -71,7 +79,14 @@ public final class WindowMeanEvaluator {
         int sensors = unit.sensors().size();
         this.values = new double[window][sensors];
         this.good = new boolean[window][sensors];
+        this.timeMs = new long[window];
         this.evaluator = evaluator;
+        this.inBalance = new boolean[sensors];
+        for (int i = 0; i < sensors; i++) {
+            inBalance[i] = !evaluator.balancesOf(unit.sensors().get(i).id()).isEmpty();
+        }
+        this.sums = new double[sensors];
+        this.counts = new int[sensors];
     }
 
     /**
@@ -108,13 +123,39 @@ public final class WindowMeanEvaluator {
         return held;
     }
 
+    /** The means reconciled so far: one per snapshot, none for a verdict withheld. */
+    public long meansEvaluated() {
+        return meansEvaluated;
+    }
+
     /**
      * Takes the snapshot into the window and returns the result record of the window's mean, time
-     * stamped with this snapshot's time; never throws for bad sensor values.
+     * stamped with this snapshot's time; never throws for bad sensor values. The mean is reconciled
+     * whatever the window holds; {@link #evaluate(Snapshot, WindowRule)} first asks whether it is
+     * representative.
      *
      * @throws IllegalArgumentException when the snapshot is of another unit or has not one value per sensor
      */
     public UnitResult evaluate(Snapshot snapshot) {
+        take(snapshot);
+        return evaluateMean(snapshot);
+    }
+
+    /**
+     * Takes the snapshot into the window and, when the window is representative by {@code rule},
+     * returns the result record of its mean as {@link #evaluate(Snapshot)} does; otherwise the
+     * reason, with no reconciliation run (a withheld verdict costs a pass over the window's flags).
+     *
+     * @throws IllegalArgumentException when the snapshot is of another unit or has not one value per sensor
+     */
+    public WindowVerdict evaluate(Snapshot snapshot, WindowRule rule) {
+        Objects.requireNonNull(rule, "rule");
+        take(snapshot);
+        String reason = unrepresentative(rule);
+        return reason == null ? WindowVerdict.of(evaluateMean(snapshot)) : WindowVerdict.withheld(reason);
+    }
+
+    private void take(Snapshot snapshot) {
         int sensors = unit.sensors().size();
         if (!snapshot.unitId().equals(unit.id()) || snapshot.valuesSi().length != sensors) {
             throw new IllegalArgumentException("window of unit " + unit.id() + " (" + sensors
@@ -126,11 +167,9 @@ public final class WindowMeanEvaluator {
             good[next][i] = snapshot.status()[i] == Snapshot.SensorStatus.GOOD && Double.isFinite(v);
             values[next][i] = v;
         }
+        timeMs[next] = snapshot.timestamp().toEpochMilli();
         next = (next + 1) % window;
         held = Math.min(held + 1, window);
-        double[] mean = snapshot.valuesSi().clone();
-        Snapshot.SensorStatus[] status = snapshot.status().clone();
-        int nEff = Integer.MAX_VALUE;
         for (int i = 0; i < sensors; i++) {
             double sum = 0.0;
             int count = 0;
@@ -140,8 +179,56 @@ public final class WindowMeanEvaluator {
                     count++;
                 }
             }
+            sums[i] = sum;
+            counts[i] = count;
+        }
+    }
+
+    /** Why the window as held now is not representative by {@code rule}; null when it is. */
+    private String unrepresentative(WindowRule rule) {
+        long oldest = timeMs[(next - held + window) % window];
+        long newest = timeMs[(next - 1 + window) % window];
+        long periodMs = rule.snapshotPeriod().toMillis();
+        long spanned = newest > oldest ? Math.round((double) (newest - oldest) / periodMs) + 1 : 1;
+        int periods = (int) Math.min(Integer.MAX_VALUE, Math.max(held, spanned));
+        int needed = rule.needed(periods);
+        String share = Math.round(rule.minGoodShare() * 100.0) + " %";
+        if (held < needed) {
+            return "the window's " + held + " snapshots span " + periods + " periods of " + (periodMs % 1000 == 0 ? periodMs / 1000 + " s" : periodMs + " ms")
+                    + ": " + (periods - held) + " missing, at most " + (periods - needed) + " allowed (" + share
+                    + " of the span must be held)";
+        }
+        StringBuilder shortOf = null;
+        int more = 0;
+        int named = 0;
+        for (int i = 0; i < counts.length; i++) {
+            if (inBalance[i] && counts[i] > 0 && counts[i] < needed) {
+                if (named == 3) {
+                    more++;
+                    continue;
+                }
+                shortOf = shortOf == null ? new StringBuilder() : shortOf.append(", ");
+                shortOf.append(unit.sensors().get(i).id()).append(" (").append(counts[i]).append(')');
+                named++;
+            }
+        }
+        if (shortOf == null) {
+            return null;
+        }
+        return "good values in only part of the window's " + periods + " periods, fewer than the " + needed
+                + " needed (" + share + "): " + shortOf + (more > 0 ? " and " + more + " more" : "");
+    }
+
+    /** The result record of the mean of the held snapshots, from {@link #take}'s sums. */
+    private UnitResult evaluateMean(Snapshot snapshot) {
+        int sensors = unit.sensors().size();
+        double[] mean = snapshot.valuesSi().clone();
+        Snapshot.SensorStatus[] status = snapshot.status().clone();
+        int nEff = Integer.MAX_VALUE;
+        for (int i = 0; i < sensors; i++) {
+            int count = counts[i];
             if (count > 0) {
-                mean[i] = sum / count;
+                mean[i] = sums[i] / count;
                 status[i] = Snapshot.SensorStatus.GOOD;
                 nEff = Math.min(nEff, count);
             }
@@ -149,6 +236,7 @@ public final class WindowMeanEvaluator {
         if (nEff == Integer.MAX_VALUE) {
             nEff = 1;
         }
+        meansEvaluated++;
         return evaluator.evaluate(new Snapshot(snapshot.timestamp(), snapshot.unitId(), mean, status),
                 uncertaintiesOfMean(nEff));
     }
