@@ -52,6 +52,13 @@ public final class WindowMeanEvaluator {
     private final int window;
     private final double[][] values;
     private final boolean[][] good;
+    /**
+     * Whether the good value is a new reading: not bit for bit the value the sensor had in the
+     * snapshot before. The collector carries a sensor's newest reading into every snapshot until its
+     * max age (GOOD), so a reading that arrives late, or a source that falls behind, repeats one
+     * reading over several snapshots; that reading's noise is one draw, not several.
+     */
+    private final boolean[][] fresh;
     /** Each held snapshot's timestamp, ms since the epoch, in the same ring as {@link #values}. */
     private final long[] timeMs;
     /** Whether the sensor takes part in a balance: only those decide whether the window is representative. */
@@ -59,6 +66,7 @@ public final class WindowMeanEvaluator {
     /** Per sensor, scratch of one evaluation: the sum and count of its good values in the window. */
     private final double[] sums;
     private final int[] counts;
+    private final int[] freshCounts;
     /**
      * The one compiled evaluator: a compiled evaluator is large (its cycle model and
      * reconciliation, about 65 kB) and each compilation costs CPU (0.3 to 0.7 ms warm, far more
@@ -79,6 +87,7 @@ public final class WindowMeanEvaluator {
         int sensors = unit.sensors().size();
         this.values = new double[window][sensors];
         this.good = new boolean[window][sensors];
+        this.fresh = new boolean[window][sensors];
         this.timeMs = new long[window];
         this.evaluator = evaluator;
         this.inBalance = new boolean[sensors];
@@ -87,6 +96,7 @@ public final class WindowMeanEvaluator {
         }
         this.sums = new double[sensors];
         this.counts = new int[sensors];
+        this.freshCounts = new int[sensors];
     }
 
     /**
@@ -138,13 +148,16 @@ public final class WindowMeanEvaluator {
      */
     public UnitResult evaluate(Snapshot snapshot) {
         take(snapshot);
-        return evaluateMean(snapshot);
+        return evaluateMean(snapshot, counts);
     }
 
     /**
      * Takes the snapshot into the window and, when the window is representative by {@code rule},
-     * returns the result record of its mean as {@link #evaluate(Snapshot)} does; otherwise the
-     * reason, with no reconciliation run (a withheld verdict costs a pass over the window's flags).
+     * returns the result record of its mean as {@link #evaluate(Snapshot)} does, but with n_eff
+     * counted in new readings ({@link #fresh}): a value repeated from the snapshot before counts
+     * once, so a window of held readings is not taken for more independent readings than it has.
+     * Otherwise the reason, with no reconciliation run (a withheld verdict costs a pass over the
+     * window's flags). A window of noisy, fresh readings gives exactly what {@link #evaluate(Snapshot)} gives.
      *
      * @throws IllegalArgumentException when the snapshot is of another unit or has not one value per sensor
      */
@@ -152,7 +165,8 @@ public final class WindowMeanEvaluator {
         Objects.requireNonNull(rule, "rule");
         take(snapshot);
         String reason = unrepresentative(rule);
-        return reason == null ? WindowVerdict.of(evaluateMean(snapshot)) : WindowVerdict.withheld(reason);
+        return reason == null ? WindowVerdict.of(evaluateMean(snapshot, freshCounts))
+                : WindowVerdict.withheld(reason);
     }
 
     private void take(Snapshot snapshot) {
@@ -162,9 +176,13 @@ public final class WindowMeanEvaluator {
                     + " sensors) was given a snapshot of unit " + snapshot.unitId() + " with "
                     + snapshot.valuesSi().length + " values");
         }
+        int before = (next - 1 + window) % window;
         for (int i = 0; i < sensors; i++) {
             double v = snapshot.valuesSi()[i];
-            good[next][i] = snapshot.status()[i] == Snapshot.SensorStatus.GOOD && Double.isFinite(v);
+            boolean g = snapshot.status()[i] == Snapshot.SensorStatus.GOOD && Double.isFinite(v);
+            good[next][i] = g;
+            // a deliberate exact comparison: a held reading is the same double, a new one almost never is
+            fresh[next][i] = g && (held == 0 || !good[before][i] || values[before][i] != v);
             values[next][i] = v;
         }
         timeMs[next] = snapshot.timestamp().toEpochMilli();
@@ -173,14 +191,20 @@ public final class WindowMeanEvaluator {
         for (int i = 0; i < sensors; i++) {
             double sum = 0.0;
             int count = 0;
+            int newReadings = 0;
             for (int w = 0; w < held; w++) {
                 if (good[w][i]) {
                     sum += values[w][i];
                     count++;
+                    if (fresh[w][i]) {
+                        newReadings++;
+                    }
                 }
             }
             sums[i] = sum;
             counts[i] = count;
+            // at least one: the oldest held value may repeat a reading that has left the window
+            freshCounts[i] = count > 0 ? Math.max(1, newReadings) : 0;
         }
     }
 
@@ -219,8 +243,11 @@ public final class WindowMeanEvaluator {
                 + " needed (" + share + "): " + shortOf + (more > 0 ? " and " + more + " more" : "");
     }
 
-    /** The result record of the mean of the held snapshots, from {@link #take}'s sums. */
-    private UnitResult evaluateMean(Snapshot snapshot) {
+    /**
+     * The result record of the mean of the held snapshots, from {@link #take}'s sums; n_eff is the
+     * smallest of {@code readings} over the sensors with a good value.
+     */
+    private UnitResult evaluateMean(Snapshot snapshot, int[] readings) {
         int sensors = unit.sensors().size();
         double[] mean = snapshot.valuesSi().clone();
         Snapshot.SensorStatus[] status = snapshot.status().clone();
@@ -230,7 +257,7 @@ public final class WindowMeanEvaluator {
             if (count > 0) {
                 mean[i] = sums[i] / count;
                 status[i] = Snapshot.SensorStatus.GOOD;
-                nEff = Math.min(nEff, count);
+                nEff = Math.min(nEff, readings[i]);
             }
         }
         if (nEff == Integer.MAX_VALUE) {

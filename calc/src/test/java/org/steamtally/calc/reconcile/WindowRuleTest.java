@@ -27,9 +27,16 @@ class WindowRuleTest {
     private static final Duration PERIOD = Duration.ofSeconds(1);
     private static final WindowRule RULE = WindowRule.of(PERIOD);
 
-    /** The consistent snapshot at second {@code k}, FT-101 offset and with the given status. */
+    /**
+     * The consistent snapshot at second {@code k}, FT-101 offset and with the given status. Every
+     * value moves by a few parts in 1e9 from one second to the next, as a new reading does; a value
+     * repeated bit for bit is a held one (see {@link #heldReadingsCountOnceInTheUncertaintyOfTheMean}).
+     */
     private static Snapshot at(int k, double offset, Snapshot.SensorStatus ft101) {
         double[] v = RegenerativeExample.consistentArray(UNIT);
+        for (int j = 0; j < v.length; j++) {
+            v[j] += 1e-9 * Math.abs(v[j]) * (k % 7 + 1);
+        }
         int i = RegenerativeExample.index(UNIT, "FT-101");
         v[i] += offset;
         Snapshot.SensorStatus[] st = new Snapshot.SensorStatus[v.length];
@@ -136,6 +143,37 @@ class WindowRuleTest {
                 () -> assertEquals(y.reconciliation().status(), x.reconciliation().status()),
                 () -> assertEquals(fb.reconciled(), fa.reconciled()),
                 () -> assertEquals(fb.sigmaMeasured(), fa.sigmaMeasured()));
+    }
+
+    @Test
+    void heldReadingsCountOnceInTheUncertaintyOfTheMean() {
+        // FT-101 at second 0 and 1 the same reading (held), then a new one held again: 2 readings in 4
+        WindowMeanEvaluator w = WindowMeanEvaluator.compile("fernholm", UNIT, 4);
+        Snapshot a = at(0, 0.2, Snapshot.SensorStatus.GOOD);
+        Snapshot b = at(2, -0.2, Snapshot.SensorStatus.GOOD);
+        int ft = RegenerativeExample.index(UNIT, "FT-101");
+        w.evaluate(a, RULE);
+        w.evaluate(withValue(at(1, 0.0, Snapshot.SensorStatus.GOOD), ft, a.valuesSi()[ft]), RULE);
+        w.evaluate(b, RULE);
+        UnitResult r = w.evaluate(withValue(at(3, 0.0, Snapshot.SensorStatus.GOOD), ft, b.valuesSi()[ft]), RULE)
+                .result().orElseThrow();
+        UnitResult plain = WindowMeanEvaluator.compile("fernholm", UNIT, 4).evaluate(at(3, 0.0, Snapshot.SensorStatus.GOOD));
+        double u = UNIT.sensors().get(RegenerativeExample.index(UNIT, "TT-101")).standardUncertaintySi();
+        ReconciledSensor tt = r.reconciliation().sensors().get(RegenerativeExample.index(UNIT, "TT-101"));
+        ReconciledSensor fm = r.reconciliation().sensors().get(ft);
+        assertAll(
+                // the mean is that of the four values as held (by hand: 0.2, 0.2, −0.2, −0.2 → 0)
+                () -> assertEquals(RegenerativeExample.consistentValues().get("FT-101"), fm.measured().getAsDouble(),
+                        1e-6),
+                // n_eff 2, not 4: u/√2 for every sensor (GUM 4.2.3 with two readings)
+                () -> assertEquals(u / Math.sqrt(2.0), tt.sigmaMeasured().getAsDouble(), 1e-15),
+                () -> assertTrue(plain.reconciliation().sensors().get(ft).sigmaMeasured().isPresent()));
+    }
+
+    private static Snapshot withValue(Snapshot s, int index, double value) {
+        double[] v = s.valuesSi().clone();
+        v[index] = value;
+        return new Snapshot(s.timestamp(), s.unitId(), v, s.status());
     }
 
     @Test
