@@ -41,6 +41,11 @@ import org.steamtally.calc.plant.UnitDescription;
  * smallest count of good values over the sensors that have any, so a sensor that dropped out for a
  * while makes the uncertainties of all a little wider than they need be, never narrower.
  *
+ * <p>The daemon evaluates through {@link #evaluate(Snapshot, WindowRule)}: a window that is not
+ * representative (periods missing, a balance sensor good over only part of it) is not reconciled,
+ * and n_eff counts new readings, not values carried over from the snapshot before
+ * (docs/DETECTION.md, windows that are not representative).
+ *
  * <p>One evaluator is compiled per window, with the declared uncertainties; each mean is evaluated
  * with the sensors' uncertainties divided by √n_eff handed over at evaluation time, so a window that
  * fills after a start or a sensor that drops out costs no compilation, and the window holds one
