@@ -152,7 +152,7 @@
     const w = state.result.window_reconciliation;
     if (w) {
       const filling = w.samples < w.length ? 'window filling: ' + w.samples + ' of ' + w.length + ' snapshots' : null;
-      const v = verdict(w, filling);
+      const v = verdict(w, [filling, w.reason].filter(Boolean).join('; ') || null);
       t.append(el('tr', {}, el('td', { class: 'text' }, 'Mean of the last ' + Units.fixed(w.length_s, 0) + ' s'),
         el('td', { class: 'text' }, tag(v.word, v.kind)), el('td', { class: 'text' }, v.detail)));
     }

@@ -309,6 +309,26 @@ public final class AlarmEngine {
     }
 
     /**
+     * Nothing could be evaluated this time (the window channel withheld its verdict on a window that
+     * was not representative): every alarm keeps its condition and drops any change under way, as
+     * each alarm does when its own input is missing, so a missing verdict neither raises nor clears
+     * one. Shelves whose time is up expire.
+     *
+     * @return the events of the changes of state (shelf expiry only), in order; an empty immutable
+     *         list when nothing changed
+     */
+    public List<AlarmEvent> hold() {
+        events = null;
+        Instant now = clock.instant();
+        expire(now);
+        long nowMs = now.toEpochMilli();
+        for (int k = 0; k < all.size(); k++) {
+            all.get(k).hold(nowMs);
+        }
+        return drain();
+    }
+
+    /**
      * Updates the frozen-sensor and erratic-sensor alarms from a signal check of one snapshot, and
      * expires shelves whose time is up. A test that did not decide keeps its alarm as it is, as a
      * missing input does for the other kinds; the stale alarm says why.

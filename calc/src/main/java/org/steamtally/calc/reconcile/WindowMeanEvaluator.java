@@ -41,6 +41,11 @@ import org.steamtally.calc.plant.UnitDescription;
  * smallest count of good values over the sensors that have any, so a sensor that dropped out for a
  * while makes the uncertainties of all a little wider than they need be, never narrower.
  *
+ * <p>The daemon evaluates through {@link #evaluate(Snapshot, WindowRule)}: a window that is not
+ * representative (periods missing, a balance sensor good over only part of it) is not reconciled,
+ * and n_eff counts new readings, not values carried over from the snapshot before
+ * (docs/DETECTION.md, windows that are not representative).
+ *
  * <p>One evaluator is compiled per window, with the declared uncertainties; each mean is evaluated
  * with the sensors' uncertainties divided by √n_eff handed over at evaluation time, so a window that
  * fills after a start or a sensor that drops out costs no compilation, and the window holds one
@@ -53,6 +58,21 @@ public final class WindowMeanEvaluator {
     private final double[][] values;
     private final boolean[][] good;
     /**
+     * Whether the good value is a new reading: not bit for bit the value the sensor had in the
+     * snapshot before. The collector carries a sensor's newest reading into every snapshot until its
+     * max age (GOOD), so a reading that arrives late, or a source that falls behind, repeats one
+     * reading over several snapshots; that reading's noise is one draw, not several.
+     */
+    private final boolean[][] fresh;
+    /** Each held snapshot's timestamp, ms since the epoch, in the same ring as {@link #values}. */
+    private final long[] timeMs;
+    /** Whether the sensor takes part in a balance: only those decide whether the window is representative. */
+    private final boolean[] inBalance;
+    /** Per sensor, scratch of one evaluation: the sum and count of its good values in the window. */
+    private final double[] sums;
+    private final int[] counts;
+    private final int[] freshCounts;
+    /**
      * The one compiled evaluator: a compiled evaluator is large (its cycle model and
      * reconciliation, about 65 kB) and each compilation costs CPU (0.3 to 0.7 ms warm, far more
      * while the JIT is cold; docs/PERFORMANCE.md), so neither one per n_eff nor a compilation per
@@ -64,6 +84,7 @@ public final class WindowMeanEvaluator {
     private int meanCount;
     private int next;
     private int held;
+    private long meansEvaluated;
 
     private WindowMeanEvaluator(UnitDescription unit, int window, ReconcilingEvaluator evaluator) {
         this.unit = unit;
@@ -71,7 +92,16 @@ public final class WindowMeanEvaluator {
         int sensors = unit.sensors().size();
         this.values = new double[window][sensors];
         this.good = new boolean[window][sensors];
+        this.fresh = new boolean[window][sensors];
+        this.timeMs = new long[window];
         this.evaluator = evaluator;
+        this.inBalance = new boolean[sensors];
+        for (int i = 0; i < sensors; i++) {
+            inBalance[i] = !evaluator.balancesOf(unit.sensors().get(i).id()).isEmpty();
+        }
+        this.sums = new double[sensors];
+        this.counts = new int[sensors];
+        this.freshCounts = new int[sensors];
     }
 
     /**
@@ -108,47 +138,137 @@ public final class WindowMeanEvaluator {
         return held;
     }
 
+    /** The means reconciled so far: one per snapshot, none for a verdict withheld. */
+    public long meansEvaluated() {
+        return meansEvaluated;
+    }
+
     /**
      * Takes the snapshot into the window and returns the result record of the window's mean, time
-     * stamped with this snapshot's time; never throws for bad sensor values.
+     * stamped with this snapshot's time; never throws for bad sensor values. The mean is reconciled
+     * whatever the window holds; {@link #evaluate(Snapshot, WindowRule)} first asks whether it is
+     * representative.
      *
      * @throws IllegalArgumentException when the snapshot is of another unit or has not one value per sensor
      */
     public UnitResult evaluate(Snapshot snapshot) {
+        take(snapshot);
+        return evaluateMean(snapshot, counts);
+    }
+
+    /**
+     * Takes the snapshot into the window and, when the window is representative by {@code rule},
+     * returns the result record of its mean as {@link #evaluate(Snapshot)} does, but with n_eff
+     * counted in new readings ({@link #fresh}): a value repeated from the snapshot before counts
+     * once, so a window of held readings is not taken for more independent readings than it has.
+     * Otherwise the reason, with no reconciliation run (a withheld verdict costs a pass over the
+     * window's flags). A window of noisy, fresh readings gives exactly what {@link #evaluate(Snapshot)} gives.
+     *
+     * @throws IllegalArgumentException when the snapshot is of another unit or has not one value per sensor
+     */
+    public WindowVerdict evaluate(Snapshot snapshot, WindowRule rule) {
+        Objects.requireNonNull(rule, "rule");
+        take(snapshot);
+        String reason = unrepresentative(rule);
+        return reason == null ? WindowVerdict.of(evaluateMean(snapshot, freshCounts))
+                : WindowVerdict.withheld(reason);
+    }
+
+    private void take(Snapshot snapshot) {
         int sensors = unit.sensors().size();
         if (!snapshot.unitId().equals(unit.id()) || snapshot.valuesSi().length != sensors) {
             throw new IllegalArgumentException("window of unit " + unit.id() + " (" + sensors
                     + " sensors) was given a snapshot of unit " + snapshot.unitId() + " with "
                     + snapshot.valuesSi().length + " values");
         }
+        int before = (next - 1 + window) % window;
         for (int i = 0; i < sensors; i++) {
             double v = snapshot.valuesSi()[i];
-            good[next][i] = snapshot.status()[i] == Snapshot.SensorStatus.GOOD && Double.isFinite(v);
+            boolean g = snapshot.status()[i] == Snapshot.SensorStatus.GOOD && Double.isFinite(v);
+            good[next][i] = g;
+            // a deliberate exact comparison: a held reading is the same double, a new one almost never is
+            fresh[next][i] = g && (held == 0 || !good[before][i] || values[before][i] != v);
             values[next][i] = v;
         }
+        timeMs[next] = snapshot.timestamp().toEpochMilli();
         next = (next + 1) % window;
         held = Math.min(held + 1, window);
-        double[] mean = snapshot.valuesSi().clone();
-        Snapshot.SensorStatus[] status = snapshot.status().clone();
-        int nEff = Integer.MAX_VALUE;
         for (int i = 0; i < sensors; i++) {
             double sum = 0.0;
             int count = 0;
+            int newReadings = 0;
             for (int w = 0; w < held; w++) {
                 if (good[w][i]) {
                     sum += values[w][i];
                     count++;
+                    if (fresh[w][i]) {
+                        newReadings++;
+                    }
                 }
             }
+            sums[i] = sum;
+            counts[i] = count;
+            // at least one: the oldest held value may repeat a reading that has left the window
+            freshCounts[i] = count > 0 ? Math.max(1, newReadings) : 0;
+        }
+    }
+
+    /** Why the window as held now is not representative by {@code rule}; null when it is. */
+    private String unrepresentative(WindowRule rule) {
+        long oldest = timeMs[(next - held + window) % window];
+        long newest = timeMs[(next - 1 + window) % window];
+        long periodMs = rule.snapshotPeriod().toMillis();
+        long spanned = newest > oldest ? Math.round((double) (newest - oldest) / periodMs) + 1 : 1;
+        int periods = (int) Math.min(Integer.MAX_VALUE, Math.max(held, spanned));
+        int needed = rule.needed(periods);
+        String share = Math.round(rule.minGoodShare() * 100.0) + " %";
+        if (held < needed) {
+            return "the window's " + held + " snapshots span " + periods + " periods of " + (periodMs % 1000 == 0 ? periodMs / 1000 + " s" : periodMs + " ms")
+                    + ": " + (periods - held) + " missing, at most " + (periods - needed) + " allowed (" + share
+                    + " of the span must be held)";
+        }
+        StringBuilder shortOf = null;
+        int more = 0;
+        int named = 0;
+        for (int i = 0; i < counts.length; i++) {
+            if (inBalance[i] && counts[i] > 0 && counts[i] < needed) {
+                if (named == 3) {
+                    more++;
+                    continue;
+                }
+                shortOf = shortOf == null ? new StringBuilder() : shortOf.append(", ");
+                shortOf.append(unit.sensors().get(i).id()).append(" (").append(counts[i]).append(')');
+                named++;
+            }
+        }
+        if (shortOf == null) {
+            return null;
+        }
+        return "good values in only part of the window's " + periods + " periods, fewer than the " + needed
+                + " needed (" + share + "): " + shortOf + (more > 0 ? " and " + more + " more" : "");
+    }
+
+    /**
+     * The result record of the mean of the held snapshots, from {@link #take}'s sums; n_eff is the
+     * smallest of {@code readings} over the sensors with a good value.
+     */
+    private UnitResult evaluateMean(Snapshot snapshot, int[] readings) {
+        int sensors = unit.sensors().size();
+        double[] mean = snapshot.valuesSi().clone();
+        Snapshot.SensorStatus[] status = snapshot.status().clone();
+        int nEff = Integer.MAX_VALUE;
+        for (int i = 0; i < sensors; i++) {
+            int count = counts[i];
             if (count > 0) {
-                mean[i] = sum / count;
+                mean[i] = sums[i] / count;
                 status[i] = Snapshot.SensorStatus.GOOD;
-                nEff = Math.min(nEff, count);
+                nEff = Math.min(nEff, readings[i]);
             }
         }
         if (nEff == Integer.MAX_VALUE) {
             nEff = 1;
         }
+        meansEvaluated++;
         return evaluator.evaluate(new Snapshot(snapshot.timestamp(), snapshot.unitId(), mean, status),
                 uncertaintiesOfMean(nEff));
     }

@@ -82,7 +82,10 @@ public final class ResultFields {
     public static final List<String> SUSPECT_NUMBERS = List.of("bias", "sigma_bias");
     public static final String CONFIRMED = "confirmed";
 
-    /** The window channel's verdict, absent when no window channel ran; its fields in order. */
+    /**
+     * The window channel's verdict, absent when no window channel ran; its fields in order, then
+     * {@link #REASON} when the verdict was withheld.
+     */
     public static final String WINDOW_RECONCILIATION = "window_reconciliation";
     public static final String LENGTH_S = "length_s";
     public static final String LENGTH = "length";

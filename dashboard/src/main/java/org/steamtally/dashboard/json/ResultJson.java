@@ -196,6 +196,10 @@ public final class ResultJson {
         writeNumber(g, ResultFields.WINDOW_RECONCILIATION, ResultFields.CHI2_LIMIT, w.chi2Limit());
         g.writeNumberField(ResultFields.REDUNDANCY, w.redundancy());
         writeSuspects(g, w.suspects());
+        // only when there is one, so that a verdict's object is as it was before withheld windows
+        if (w.reason().isPresent()) {
+            g.writeStringField(ResultFields.REASON, w.reason().get());
+        }
         g.writeEndObject();
     }
 
@@ -366,8 +370,10 @@ public final class ResultJson {
         OptionalDouble limit = number(w, ResultFields.CHI2_LIMIT, where);
         int redundancy = integer(w, ResultFields.REDUNDANCY, where);
         List<Suspect> suspects = suspects(w);
+        Optional<String> reason = w.has(ResultFields.REASON) ? optionalText(w, ResultFields.REASON, where)
+                : Optional.empty();
         return Optional.of(construct(where, () -> new WindowReconciliation(lengthS, length, samples, status, chi2,
-                limit, redundancy, suspects)));
+                limit, redundancy, suspects, reason)));
     }
 
     private static List<Suspect> suspects(JsonNode holder) {

@@ -59,6 +59,23 @@ class ResultJsonTest {
     }
 
     @Test
+    void aWithheldWindowVerdictWritesItsReasonLastAndReadsBack() {
+        UnitResult plain = ResultFixture.unit2();
+        UnitResult withheld = plain.withWindowReconciliation(org.steamtally.calc.cycle.WindowReconciliation.withheld(
+                50.0, 50, 50, "good values in only part of the window's 50 periods, fewer than the 45 needed (90 %):"
+                        + " FT-101 (25)"));
+        String json = ResultJson.write(withheld);
+        assertTrue(json.endsWith("\"window_reconciliation\":{\"length_s\":50.0,\"length\":50,\"samples\":50,"
+                + "\"status\":\"withheld\",\"passed\":false,\"chi2\":0.0,\"chi2_limit\":null,\"redundancy\":0,"
+                + "\"suspects\":[],\"reason\":\"good values in only part of the window's 50 periods, fewer than the 45"
+                + " needed (90 %): FT-101 (25)\"}}"), json);
+        assertEquals(withheld, ResultJson.read(json));
+        String noReason = json.substring(0, json.lastIndexOf(",\"reason\"")) + "}}";
+        ResultFormatException e = assertThrows(ResultFormatException.class, () -> ResultJson.read(noReason));
+        assertTrue(e.getMessage().contains("a withheld verdict must say why"), e.getMessage());
+    }
+
+    @Test
     void recordReadsBackEqualToTheOneWritten() {
         UnitResult written = ResultFixture.unit2();
         assertEquals(written, ResultJson.read(ResultJson.write(written)));

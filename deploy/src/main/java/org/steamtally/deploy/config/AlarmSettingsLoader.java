@@ -21,6 +21,7 @@ import org.steamtally.calc.alarm.AlarmDefinition;
 import org.steamtally.calc.alarm.AlarmKind;
 import org.steamtally.calc.alarm.AlarmPriority;
 import org.steamtally.calc.alarm.AlarmSettings;
+import org.steamtally.calc.reconcile.WindowRule;
 import org.steamtally.calc.signal.SignalSettings;
 import org.steamtally.collector.units.EngineeringUnit;
 import org.steamtally.collector.units.Units;
@@ -227,7 +228,7 @@ public final class AlarmSettingsLoader {
             if (isNull(node)) {
                 return defaults;
             }
-            List<String> shown = new ArrayList<>(List.of("enabled", "length"));
+            List<String> shown = new ArrayList<>(List.of("enabled", "length", "min_good_share"));
             for (AlarmKind kind : AlarmKind.values()) {
                 if (WindowChannelSettings.KINDS.contains(kind)) {
                     shown.add(kind.key());
@@ -243,6 +244,7 @@ public final class AlarmSettingsLoader {
             }
             boolean enabled = true;
             Duration length = WindowChannelSettings.LENGTH_DEFAULT;
+            double minGoodShare = WindowRule.MIN_GOOD_SHARE_DEFAULT;
             Map<AlarmKind, AlarmDefinition> kinds = new EnumMap<>(AlarmKind.class);
             for (Map.Entry<String, Node> e : entries.entrySet()) {
                 String key = e.getKey();
@@ -264,6 +266,14 @@ public final class AlarmSettingsLoader {
                             length = d;
                         }
                     }
+                    case "min_good_share" -> {
+                        Double v = number(value, "min_good_share of alarms.window");
+                        if (v != null && !(v > 0.0 && v <= 1.0)) {
+                            problem(value, "min_good_share of alarms.window must be above 0 and at most 1, was " + v);
+                        } else if (v != null) {
+                            minGoodShare = v;
+                        }
+                    }
                     default -> {
                         AlarmKind kind = kindOfKey(key);
                         if (!WindowChannelSettings.KINDS.contains(kind)) {
@@ -282,7 +292,8 @@ public final class AlarmSettingsLoader {
                 }
             }
             try {
-                return new WindowChannelSettings(enabled, length, WindowChannelSettings.alarmSettings(kinds, maxShelve));
+                return new WindowChannelSettings(enabled, length, WindowChannelSettings.alarmSettings(kinds, maxShelve),
+                        minGoodShare);
             } catch (IllegalArgumentException e) {
                 problem(node, "alarms.window: " + e.getMessage());
                 return defaults;

@@ -8,6 +8,7 @@ import java.util.Set;
 import org.steamtally.calc.alarm.AlarmDefinition;
 import org.steamtally.calc.alarm.AlarmKind;
 import org.steamtally.calc.alarm.AlarmSettings;
+import org.steamtally.calc.reconcile.WindowRule;
 
 /**
  * The window channel of the daemon: the reconciliation of the mean of the last {@code length} of
@@ -23,8 +24,11 @@ import org.steamtally.calc.alarm.AlarmSettings;
  *                daemon turns it into a count of snapshots with the collector's snapshot period
  * @param alarms  the window alarms' settings: one definition per kind, the three window kinds as
  *                configured, every other kind disabled; no overrides
+ * @param minGoodShare the share of the window's periods that must be held, and have good values of
+ *                every balance sensor, for the mean to be reconciled ({@link WindowRule}), in (0, 1];
+ *                below it the verdict is withheld
  */
-public record WindowChannelSettings(boolean enabled, Duration length, AlarmSettings alarms) {
+public record WindowChannelSettings(boolean enabled, Duration length, AlarmSettings alarms, double minGoodShare) {
 
     /** The kinds the window channel raises. */
     public static final Set<AlarmKind> KINDS = Set.of(AlarmKind.CLOSURE, AlarmKind.GLOBAL_TEST, AlarmKind.SUSPECT_SENSOR);
@@ -57,6 +61,10 @@ public record WindowChannelSettings(boolean enabled, Duration length, AlarmSetti
     public WindowChannelSettings {
         Objects.requireNonNull(length, "length");
         Objects.requireNonNull(alarms, "alarms");
+        if (!(minGoodShare > 0.0 && minGoodShare <= 1.0)) {
+            throw new IllegalArgumentException("the window's min_good_share must be above 0 and at most 1, was "
+                    + minGoodShare);
+        }
         if (length.compareTo(MIN_LENGTH) < 0 || length.compareTo(MAX_LENGTH) > 0) {
             throw new IllegalArgumentException("the window's length must be between " + MIN_LENGTH.toSeconds()
                     + " s and " + MAX_LENGTH.toMinutes() + " min, was " + length);
@@ -73,9 +81,24 @@ public record WindowChannelSettings(boolean enabled, Duration length, AlarmSetti
         }
     }
 
+    /** The settings with the default {@link WindowRule#MIN_GOOD_SHARE_DEFAULT}. */
+    public WindowChannelSettings(boolean enabled, Duration length, AlarmSettings alarms) {
+        this(enabled, length, alarms, WindowRule.MIN_GOOD_SHARE_DEFAULT);
+    }
+
     /** These settings with the channel switched on or off. */
     public WindowChannelSettings withEnabled(boolean on) {
-        return new WindowChannelSettings(on, length, alarms);
+        return new WindowChannelSettings(on, length, alarms, minGoodShare);
+    }
+
+    /** These settings with another minimum good share. */
+    public WindowChannelSettings withMinGoodShare(double share) {
+        return new WindowChannelSettings(enabled, length, alarms, share);
+    }
+
+    /** When a window of snapshots {@code period} apart is representative enough to be reconciled. */
+    public WindowRule rule(Duration period) {
+        return new WindowRule(minGoodShare, period);
     }
 
     /** The window kinds' defaults. */

@@ -16,6 +16,8 @@ import org.steamtally.calc.cycle.UnitResult;
 import org.steamtally.calc.cycle.WindowReconciliation;
 import org.steamtally.calc.plant.UnitDescription;
 import org.steamtally.calc.reconcile.WindowMeanEvaluator;
+import org.steamtally.calc.reconcile.WindowRule;
+import org.steamtally.calc.reconcile.WindowVerdict;
 import org.steamtally.deploy.config.WindowChannelSettings;
 
 /**
@@ -30,6 +32,11 @@ import org.steamtally.deploy.config.WindowChannelSettings;
  * starts by saying it is about the window mean ({@code 50-s mean: ...}). Its engine's state is saved
  * to its own file; the window itself is not saved and starts empty after a restart.
  *
+ * <p>A window that is not representative ({@link WindowRule}: snapshots missing from it, or a balance
+ * sensor good over only part of it) is not reconciled: the summary has status
+ * {@value WindowReconciliation#WITHHELD} and the reason, and the window alarms are held as they are
+ * (none raised, none cleared, a change under way starts again with the next verdict).
+ *
  * <p>Not thread-safe: used on the unit's one thread, as the per-snapshot evaluator and engine are.
  */
 final class WindowChannel {
@@ -40,6 +47,7 @@ final class WindowChannel {
     static final String CHANNEL = "window";
 
     private final WindowMeanEvaluator evaluator;
+    private final WindowRule rule;
     private final AlarmEngine engine;
     private final AlarmStateFile stateFile;
     private final double lengthS;
@@ -49,8 +57,10 @@ final class WindowChannel {
     record Outcome(WindowReconciliation summary, List<AlarmEvent> events) {
     }
 
-    private WindowChannel(WindowMeanEvaluator evaluator, AlarmEngine engine, AlarmStateFile stateFile, double lengthS) {
+    private WindowChannel(WindowMeanEvaluator evaluator, WindowRule rule, AlarmEngine engine, AlarmStateFile stateFile,
+                          double lengthS) {
         this.evaluator = evaluator;
+        this.rule = rule;
         this.engine = engine;
         this.stateFile = stateFile;
         this.lengthS = lengthS;
@@ -67,7 +77,7 @@ final class WindowChannel {
                                  Duration snapshotPeriod, AlarmStateFile stateFile, Clock clock) {
         int n = settings.snapshots(snapshotPeriod);
         double lengthS = n * snapshotPeriod.toMillis() / 1000.0;
-        return new WindowChannel(WindowMeanEvaluator.compile(site, unit, n),
+        return new WindowChannel(WindowMeanEvaluator.compile(site, unit, n), settings.rule(snapshotPeriod),
                 new AlarmEngine(unit, settings.alarms(), clock), stateFile, lengthS);
     }
 
@@ -89,13 +99,24 @@ final class WindowChannel {
         return stateFile;
     }
 
+    /** The means reconciled so far; a withheld verdict adds none. */
+    long meansEvaluated() {
+        return evaluator.meansEvaluated();
+    }
+
     /**
-     * Takes the snapshot into the window, reconciles the mean and runs the window alarms on it.
+     * Takes the snapshot into the window and, when the window is representative, reconciles the mean
+     * and runs the window alarms on it; otherwise holds the alarms and says why.
      *
      * @throws RuntimeException when the mean cannot be evaluated; the window keeps the snapshot
      */
     Outcome evaluate(Snapshot snapshot) {
-        UnitResult mean = evaluator.evaluate(snapshot);
+        WindowVerdict verdict = evaluator.evaluate(snapshot, rule);
+        if (verdict.isWithheld()) {
+            return new Outcome(WindowReconciliation.withheld(lengthS, evaluator.windowLength(), evaluator.samples(),
+                    verdict.withheld().get()), engine.hold());
+        }
+        UnitResult mean = verdict.result().get();
         List<AlarmEvent> events = engine.evaluate(snapshot, mean, ReconciliationInput.from(mean.reconciliation()));
         return new Outcome(WindowReconciliation.of(lengthS, evaluator.windowLength(), evaluator.samples(),
                 mean.reconciliation()), events);

@@ -73,6 +73,16 @@ class WindowChannelSettingsLoaderTest {
     }
 
     @Test
+    void theShareAWindowMustHoldIsReadAndDefaultsToNinetyPercent() throws Exception {
+        assertEquals(0.9, WindowChannelSettings.DEFAULTS.minGoodShare());
+        WindowChannelSettings w = AlarmSettingsLoader.parseWindow("x.yaml",
+                minimal() + "alarms:\n  window: {min_good_share: 0.8}\n");
+        assertEquals(0.8, w.minGoodShare());
+        assertEquals(0.8, w.rule(Duration.ofSeconds(1)).minGoodShare());
+        assertEquals(WindowChannelSettings.LENGTH_DEFAULT, w.length());
+    }
+
+    @Test
     void theChannelCanBeSwitchedOff() throws Exception {
         WindowChannelSettings w = AlarmSettingsLoader.parseWindow("x.yaml",
                 minimal() + "alarms:\n  window: {enabled: false}\n");
@@ -95,8 +105,11 @@ class WindowChannelSettingsLoaderTest {
         "negative limit|closure: {limit: -1}|limit of alarms.window.closure must be positive, was -1.0",
         "deadband above the limit|suspect_sensor: {limit: 4, deadband: 5}|alarms.window.suspect_sensor: deadband 5.0 must be below the limit 4.0",
         "enabled not a flag|enabled: maybe|enabled of alarms.window must be true or false, not \"maybe\"",
-        "a per-snapshot kind|stale_sensor: {on_delay: 1s}|alarms.window: stale_sensor alarms are not raised on window means (the per-snapshot channel raises them); allowed here: enabled, length, closure, global_test, suspect_sensor",
-        "unknown key|lenght: 50s|unknown key \"lenght\" in alarms.window (allowed: enabled, length, closure, global_test, suspect_sensor)",
+        "a per-snapshot kind|stale_sensor: {on_delay: 1s}|alarms.window: stale_sensor alarms are not raised on window means (the per-snapshot channel raises them); allowed here: enabled, length, min_good_share, closure, global_test, suspect_sensor",
+        "unknown key|lenght: 50s|unknown key \"lenght\" in alarms.window (allowed: enabled, length, min_good_share, closure, global_test, suspect_sensor)",
+        "share above one|min_good_share: 1.5|min_good_share of alarms.window must be above 0 and at most 1, was 1.5",
+        "share of zero|min_good_share: 0|min_good_share of alarms.window must be above 0 and at most 1, was 0.0",
+        "share not a number|min_good_share: most|min_good_share of alarms.window must be a number, not \"most\"",
         "priority of no kind|global_test: {priority: critical}|priority of alarms.window.global_test must be one of low, medium, high, urgent, not \"critical\"",
     })
     void aBadValueIsReportedWithItsPlaceTheValueAndWhatWasExpected(String name, String entry, String expected)
