@@ -45,33 +45,38 @@ final class BufferedSockets extends SocketFactory {
 
     @Override
     public Socket createSocket(String host, int port) throws IOException {
-        Socket s = createSocket();
-        s.connect(new InetSocketAddress(host, port));
-        return s;
+        return connected(null, new InetSocketAddress(host, port));
     }
 
     @Override
     public Socket createSocket(String host, int port, InetAddress localHost, int localPort) throws IOException {
-        Socket s = createSocket();
-        s.bind(new InetSocketAddress(localHost, localPort));
-        s.connect(new InetSocketAddress(host, port));
-        return s;
+        return connected(new InetSocketAddress(localHost, localPort), new InetSocketAddress(host, port));
     }
 
     @Override
     public Socket createSocket(InetAddress host, int port) throws IOException {
-        Socket s = createSocket();
-        s.connect(new InetSocketAddress(host, port));
-        return s;
+        return connected(null, new InetSocketAddress(host, port));
     }
 
     @Override
     public Socket createSocket(InetAddress address, int port, InetAddress localAddress, int localPort)
             throws IOException {
+        return connected(new InetSocketAddress(localAddress, localPort), new InetSocketAddress(address, port));
+    }
+
+    /** A new socket bound to {@code local} (when not null) and connected to {@code remote}. */
+    private Socket connected(InetSocketAddress local, InetSocketAddress remote) throws IOException {
         Socket s = createSocket();
-        s.bind(new InetSocketAddress(localAddress, localPort));
-        s.connect(new InetSocketAddress(address, port));
-        return s;
+        try {
+            if (local != null) {
+                s.bind(local);
+            }
+            s.connect(remote);
+            return s;
+        } catch (IOException e) {
+            s.close();
+            throw e;
+        }
     }
 
     /**

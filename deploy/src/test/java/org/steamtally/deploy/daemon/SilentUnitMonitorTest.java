@@ -3,15 +3,10 @@ package org.steamtally.deploy.daemon;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import io.micrometer.core.instrument.simple.SimpleMeterRegistry;
 import java.nio.file.Path;
-import java.time.Duration;
 import java.time.Instant;
 import java.util.Arrays;
 import java.util.List;
-import java.util.Optional;
-import java.util.concurrent.LinkedBlockingQueue;
-import java.util.concurrent.TimeUnit;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.steamtally.calc.alarm.AlarmEngine;
@@ -25,7 +20,6 @@ import org.steamtally.calc.plant.UnitDescription;
 import org.steamtally.calc.sim.Simulator;
 import org.steamtally.calc.sim.TruthModel;
 import org.steamtally.dashboard.alarm.AlarmView;
-import org.steamtally.dashboard.push.InMemoryLiveResults;
 import org.steamtally.dashboard.store.StoredAlarmEvent;
 
 /**
@@ -40,23 +34,9 @@ class SilentUnitMonitorTest {
     @TempDir
     Path dataDir;
 
-    private record Rig(UnitMonitor monitor, LinkedBlockingQueue<Snapshot> queue, RecordingStore store) {
-    }
-
-    private Rig rig(PlantDescription plant, UnitMonitorTest.StepClock clock) {
-        UnitDescription unit = plant.units().get(0);
-        LinkedBlockingQueue<Snapshot> queue = new LinkedBlockingQueue<>();
-        RecordingStore store = new RecordingStore();
-        InMemoryLiveResults live = new InMemoryLiveResults(plant, clock, Duration.ofSeconds(10));
-        UnitMonitor m = new UnitMonitor(plant.siteId(), unit, AlarmSettings.DEFAULTS,
-                timeout -> Optional.ofNullable(queue.poll(timeout.toMillis(), TimeUnit.MILLISECONDS)), store, live,
-                new AlarmStateFile(dataDir, unit.id()), new SimpleMeterRegistry(), clock);
-        return new Rig(m, queue, store);
-    }
-
     /** Feeds one snapshot a simulated second for {@code seconds}, waiting for each to be processed. */
-    private static void run(Rig rig, Simulator sim, UnitMonitorTest.StepClock clock, Instant from, int seconds,
-                            boolean silent) throws InterruptedException {
+    private static void run(UnitMonitorTest.Rig rig, Simulator sim, UnitMonitorTest.StepClock clock, Instant from,
+                            int seconds, boolean silent) throws InterruptedException {
         for (int i = 0; i < seconds; i++) {
             Instant t = from.plusSeconds(i);
             clock.set(t);
@@ -68,13 +48,7 @@ class SilentUnitMonitorTest {
                 s = new Snapshot(t, s.unitId(), s.valuesSi(), status);
             }
             rig.queue().add(s);
-            long deadline = System.nanoTime() + TimeUnit.SECONDS.toNanos(30);
-            while (rig.monitor().processed() < before + 1) {
-                if (System.nanoTime() > deadline) {
-                    throw new AssertionError("snapshot at " + t + " not processed");
-                }
-                Thread.sleep(5);
-            }
+            UnitMonitorTest.awaitProcessed(rig.monitor(), before + 1);
         }
     }
 
@@ -90,7 +64,7 @@ class SilentUnitMonitorTest {
         UnitMonitorTest.StepClock clock = new UnitMonitorTest.StepClock();
         Simulator sim = Simulator.builder(TruthModel.of(unit, ExampleDesignPoints.regenerative())).seed(17).build();
 
-        Rig first = rig(plant, clock);
+        UnitMonitorTest.Rig first = UnitMonitorTest.rig(plant, clock, dataDir);
         first.monitor().start();
         EngineAlarmBoard board = new EngineAlarmBoard(List.of(first.monitor()));
         run(first, sim, clock, T0, 10, false);
@@ -111,7 +85,7 @@ class SilentUnitMonitorTest {
         first.monitor().close();
 
         // A new monitor on the same data directory, as after a kill and restart.
-        Rig second = rig(plant, clock);
+        UnitMonitorTest.Rig second = UnitMonitorTest.rig(plant, clock, dataDir);
         second.monitor().start();
         assertEquals(AlarmState.ACTIVE_UNACKNOWLEDGED, stateOf(second.monitor(), AlarmKind.SILENT_UNIT_ID));
         assertTrue(second.monitor().alarms().stream().filter(a -> a.kind() == AlarmKind.STALE_SENSOR)

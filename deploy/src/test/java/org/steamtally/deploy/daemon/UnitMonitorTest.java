@@ -68,11 +68,12 @@ class UnitMonitorTest {
         }
     }
 
-    private record Rig(UnitMonitor monitor, LinkedBlockingQueue<Snapshot> queue, RecordingStore store,
+    /** A unit's monitor fed from a queue the test fills, with a recording store and live results. */
+    record Rig(UnitMonitor monitor, LinkedBlockingQueue<Snapshot> queue, RecordingStore store,
                        InMemoryLiveResults live) {
     }
 
-    private Rig rig(PlantDescription plant, StepClock clock) {
+    static Rig rig(PlantDescription plant, StepClock clock, Path dataDir) {
         UnitDescription unit = plant.units().get(0);
         LinkedBlockingQueue<Snapshot> queue = new LinkedBlockingQueue<>();
         RecordingStore store = new RecordingStore();
@@ -83,7 +84,7 @@ class UnitMonitorTest {
         return new Rig(m, queue, store, live);
     }
 
-    private static void awaitProcessed(UnitMonitor m, long n) throws InterruptedException {
+    static void awaitProcessed(UnitMonitor m, long n) throws InterruptedException {
         long deadline = System.nanoTime() + TimeUnit.SECONDS.toNanos(30);
         while (m.processed() < n) {
             if (System.nanoTime() > deadline) {
@@ -118,7 +119,7 @@ class UnitMonitorTest {
         StepClock clock = new StepClock();
         Simulator sim = Simulator.builder(TruthModel.of(unit, ExampleDesignPoints.regenerative())).seed(7).build();
 
-        Rig first = rig(plant, clock);
+        Rig first = rig(plant, clock, dataDir);
         first.monitor().start();
         run(first, sim, clock, T0, 15);
         assertTrue(suspectAlarm(first.monitor().alarms()).isEmpty(), "no suspect alarm without a fault");
@@ -141,7 +142,7 @@ class UnitMonitorTest {
         first.monitor().close();
 
         // A new monitor on the same data directory, as after a kill and restart.
-        Rig second = rig(plant, clock);
+        Rig second = rig(plant, clock, dataDir);
         second.monitor().start();
         AlarmRecord restored = suspectAlarm(second.monitor().alarms())
                 .orElseThrow(() -> new AssertionError("alarm not restored: " + second.monitor().alarms()));
@@ -156,7 +157,7 @@ class UnitMonitorTest {
         StepClock clock = new StepClock();
         Simulator sim = Simulator.builder(TruthModel.of(unit, ExampleDesignPoints.regenerative())).seed(11)
                 .fault(new Fault.Bias(SENSOR, T0, Duration.ofHours(1), 10 * 0.625)).build();
-        Rig rig = rig(plant, clock);
+        Rig rig = rig(plant, clock, dataDir);
         rig.monitor().start();
         EngineAlarmBoard board = new EngineAlarmBoard(List.of(rig.monitor()));
         run(rig, sim, clock, T0, 25);
@@ -182,7 +183,7 @@ class UnitMonitorTest {
         // frozen from the start: the default limit of 60 s unchanged raises the alarm at the 61st snapshot
         Simulator sim = Simulator.builder(TruthModel.of(unit, ExampleDesignPoints.regenerative())).seed(13)
                 .fault(new Fault.Stuck(SENSOR, T0, Duration.ofHours(1), java.util.OptionalDouble.empty())).build();
-        Rig rig = rig(plant, clock);
+        Rig rig = rig(plant, clock, dataDir);
         rig.monitor().start();
         run(rig, sim, clock, T0, 62);
         AlarmRecord frozen = rig.monitor().alarms().stream().filter(a -> a.id().equals("frozen:" + SENSOR)).findFirst()
