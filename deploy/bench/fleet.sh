@@ -10,9 +10,11 @@
 # Run from the repository root:
 #   sh deploy/bench/fleet.sh [units=100] [warmup=60] [measure=300] [lateness=500ms] [heap=512m]
 #                            [drain=300] [keep=true] [jvm='-XX:+UseSerialGC'] [report=FILE] [store=influx]
-#                            [spread=400ms] [influx_nice=10] [scrape=15]
+#                            [spread=400ms] [influx_nice=10] [scrape=15] [trace=5] [stall=60@30]
 # spread: unit u publishes its readings of second T (stamped T) at T + u × spread / units instead of
-# all units at T at once; influx_nice: start the driver's influxd under nice.
+# all units at T at once; influx_nice: start the driver's influxd under nice; trace: log the store's
+# backlog every N s to backlog.tsv; stall (store=influx): stop influxd (SIGSTOP) for SECONDS from AT
+# seconds after publishing starts, then resume it.
 # Needs the `mosquitto` binary (Debian package mosquitto) and the JDK's jstat on the PATH; store=influx
 # also `influxd` (Debian package influxdb, 1.x).
 set -eu

@@ -73,6 +73,7 @@ import org.steamtally.deploy.daemon.ExampleDesignPoints;
  * <pre>
  * java -cp ... org.steamtally.deploy.bench.FleetLoadDriver [units=100] [warmup=60] [measure=300]
  *     [lateness=500ms] [spread=0ms] [heap=512m] [store=h2|influx] [influx_nice=0] [jar=deploy/target/steamtally.jar]
+ *     [trace=0] [stall=SECONDS@AT]
  *     [example=deploy/examples/regenerative.yaml]
  *     [keep=false]
  * </pre>
@@ -119,6 +120,11 @@ public final class FleetLoadDriver {
     private final AtomicLong maxStepMillis = new AtomicLong();
     private volatile long windowStart;
     private Duration storeDrain = Duration.ZERO;
+    /** The store's backlog traced every {@code trace} seconds: peak points queued, peak journal bytes, and when it last cleared. */
+    private volatile double peakQueued;
+    private volatile double peakSpoolBytes;
+    private volatile long backlogClearedAtMillis = -1;
+    private volatile long stallEndMillis = -1;
     private boolean storeDrained;
     private volatile long windowEnd;
 
@@ -159,7 +165,7 @@ public final class FleetLoadDriver {
         for (String a : args) {
             int eq = a.indexOf('=');
             if (eq < 1) {
-                System.err.println("arguments are key=value: units, warmup, measure, lateness, spread, heap, store, influx_nice, jar,"
+                System.err.println("arguments are key=value: units, warmup, measure, lateness, spread, heap, store, influx_nice, trace, stall, jar,"
                         + " example,"
                         + " keep;"
                         + " got '" + a + "'");
@@ -304,6 +310,10 @@ public final class FleetLoadDriver {
                 "fleet-publisher");
         pub.setDaemon(true);
         pub.start();
+        traceBacklog(httpPort, startSecond);
+        if (opts.containsKey("stall")) {
+            stallStore(influxd, startSecond);
+        }
 
         // sample /proc and /metrics at the window's edges
         sleepUntilMillis(windowStart * 1000 + latenessMs + 50);
@@ -524,6 +534,88 @@ public final class FleetLoadDriver {
                 ((OperatingSystemMXBean) ManagementFactory.getOperatingSystemMXBean()).getProcessCpuTime(),
                 machine[0], machine[1], Files.readString(Path.of("/proc/loadavg")).trim(), metrics,
                 threadTicks(daemon.pid()));
+    }
+
+    /**
+     * With {@code trace=N} (seconds, 0 or absent: off), a thread scrapes the store's queue depth and
+     * journal size every N seconds from the start of publishing and writes them to
+     * {@code backlog.tsv} in the working directory, keeping the peaks and when the backlog last cleared.
+     */
+    private void traceBacklog(int httpPort, long startSecond) {
+        int every = Integer.parseInt(opts.getOrDefault("trace", "0"));
+        if (every <= 0) {
+            return;
+        }
+        Thread t = new Thread(() -> {
+            try (var out = Files.newBufferedWriter(work.resolve("backlog.tsv"))) {
+                out.write("seconds\tqueued_points\tjournal_bytes\tstore_writes\n");
+                boolean behind = false;
+                while (!stopping) {
+                    Map<String, Double> m = metrics(httpPort);
+                    long at = System.currentTimeMillis();
+                    if (!m.containsKey("scrape_failed")) {
+                        double queued = m.getOrDefault("steamtally_store_queue_depth", 0.0);
+                        double spooled = m.getOrDefault("steamtally_store_spool_bytes", 0.0);
+                        peakQueued = Math.max(peakQueued, queued);
+                        peakSpoolBytes = Math.max(peakSpoolBytes, spooled);
+                        if (spooled > 0) {
+                            behind = true;
+                        } else if (behind) {
+                            behind = false;
+                            backlogClearedAtMillis = at;
+                        }
+                        out.write(String.format(Locale.ROOT, "%.1f\t%.0f\t%.0f\t%.0f%n", (at - startSecond * 1000) / 1000.0,
+                                queued, spooled, m.getOrDefault("steamtally_store_writes_total", 0.0)));
+                        out.flush();
+                    }
+                    Thread.sleep(every * 1000L);
+                }
+            } catch (IOException e) {
+                log("backlog trace stopped: " + e);
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+            }
+        }, "fleet-backlog-trace");
+        t.setDaemon(true);
+        t.start();
+    }
+
+    /**
+     * With {@code stall=S@A}: the store stops answering for S seconds from A seconds after publishing
+     * started (influxd stopped with SIGSTOP and resumed with SIGCONT), as a store that hangs in a long
+     * compaction or on a stuck disk would; the daemon's writes time out and go to its journal.
+     */
+    private void stallStore(Process influxd, long startSecond) {
+        String stall = opts.get("stall");
+        if (influxd == null || !stall.matches("\\d+@\\d+")) {
+            throw new IllegalArgumentException("stall=" + stall + ": expected SECONDS@AT, e.g. 60@30, and store=influx");
+        }
+        int seconds = Integer.parseInt(stall.substring(0, stall.indexOf('@')));
+        int at = Integer.parseInt(stall.substring(stall.indexOf('@') + 1));
+        Thread t = new Thread(() -> {
+            try {
+                sleepUntilMillis((startSecond + at) * 1000);
+                signal(influxd, "STOP");
+                log("influxd stopped (SIGSTOP) for " + seconds + " s");
+                sleepUntilMillis((startSecond + at + seconds) * 1000);
+                signal(influxd, "CONT");
+                stallEndMillis = System.currentTimeMillis();
+                log("influxd resumed (SIGCONT)");
+            } catch (IOException e) {
+                log("stall failed: " + e);
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+            }
+        }, "fleet-store-stall");
+        t.setDaemon(true);
+        t.start();
+    }
+
+    private static void signal(Process p, String signal) throws IOException, InterruptedException {
+        int exit = new ProcessBuilder("kill", "-" + signal, Long.toString(p.pid())).inheritIO().start().waitFor();
+        if (exit != 0) {
+            throw new IOException("kill -" + signal + " " + p.pid() + " exited " + exit);
+        }
     }
 
     /** Sums of the daemon's meters by name, with the rejected readings split by reason. */
@@ -796,6 +888,14 @@ public final class FleetLoadDriver {
                 b.metrics().getOrDefault("steamtally_store_queue_depth", 0.0),
                 b.metrics().getOrDefault("steamtally_store_spool_bytes", 0.0),
                 storeDrained ? "caught up" : "still behind", storeDrain.toSeconds());
+        if (opts.containsKey("trace")) {
+            p.line("store backlog traced every %s s (backlog.tsv): peak %.0f points queued, %.0f journal bytes; %s%s",
+                    opts.get("trace"), peakQueued, peakSpoolBytes, backlogClearedAtMillis < 0 ? "journal never emptied after filling"
+                            : String.format(Locale.ROOT, "journal last emptied %.0f s after publishing started",
+                                    (backlogClearedAtMillis - windowStart * 1000 + warmup * 1000L) / 1000.0),
+                    stallEndMillis < 0 || backlogClearedAtMillis < 0 ? "" : String.format(Locale.ROOT,
+                            ", %.0f s after the store resumed", (backlogClearedAtMillis - stallEndMillis) / 1000.0));
+        }
         p.line("latency from the completing reading's publish to the result on the stream, ms: p50 %s  p95 %s  p99 %s"
                 + "  max %s  (n=%d)", ms(last[0]), ms(last[1]), ms(last[2]), ms(last[3]), fromLast.size());
         p.line("latency from the first reading's publish, ms:                                   p50 %s  p95 %s  p99 %s"
