@@ -99,6 +99,12 @@ public record SpoolSettings(Path spoolDir, int queueCapacity, int batchSize, lon
                 retryMax, linger, lingerGap);
     }
 
+    /** The same settings with room for another number of points in memory. */
+    public SpoolSettings withQueueCapacity(int points) {
+        return new SpoolSettings(spoolDir, points, batchSize, spoolMaxBytes, segmentBytes, syncInterval, retryMin,
+                retryMax, linger, lingerGap);
+    }
+
     /** The same settings with another journal bound and segment size. */
     public SpoolSettings withSpoolBytes(long maxBytes, long segment) {
         return new SpoolSettings(spoolDir, queueCapacity, batchSize, maxBytes, segment, syncInterval, retryMin,

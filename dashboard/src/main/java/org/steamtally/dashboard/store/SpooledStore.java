@@ -17,6 +17,7 @@ import java.util.concurrent.ArrayBlockingQueue;
 import java.util.concurrent.Executors;
 import java.util.concurrent.ScheduledExecutorService;
 import java.util.concurrent.TimeUnit;
+import java.util.concurrent.locks.LockSupport;
 import org.steamtally.calc.cycle.UnitResult;
 
 /**
@@ -29,8 +30,16 @@ import org.steamtally.calc.cycle.UnitResult;
  * {@link SpoolSettings#retryMax}. Once it answers, the journal is replayed in order, batch by batch,
  * while new points keep queuing behind it; since a point's identity is its measurement, tags and
  * timestamp, a batch replayed twice (after a crash between write and acknowledgement) overwrites
- * rather than duplicates. When the queue is full, callers append to the journal themselves rather
- * than wait. The journal is forced to disk every {@link SpoolSettings#syncInterval}.
+ * rather than duplicates. While a write hangs (a store that answers slowly or not at all until the
+ * request times out), a spooler thread moves points from the queue to the journal whenever the queue
+ * is more than half full, so that callers, the units' evaluation threads, neither wait nor contend
+ * for the journal; only when the queue is full all the same (the disk cannot keep up either) does a
+ * caller append its points to the journal itself. The journal is forced to disk every
+ * {@link SpoolSettings#syncInterval}.
+ *
+ * <p>Points reach the store in the order they were queued, except that a batch whose write failed
+ * goes after any points the spooler journaled meanwhile. Neither store cares: a point written later
+ * than a newer one lands in the same place.
  *
  * <p>Meters: {@code steamtally.store.queue.depth} (points in memory), {@code steamtally.store.spool.bytes}
  * (journal size), {@code steamtally.store.spool.dropped} (points dropped from a full journal),
@@ -47,6 +56,8 @@ public final class SpooledStore implements ResultStore {
 
     /** Longest the writer waits for new points before looking at the journal again. */
     private static final Duration IDLE_POLL = Duration.ofMillis(100);
+    /** Longest the spooler sleeps between looks at the queue when nobody wakes it. */
+    private static final Duration SPOOLER_POLL = Duration.ofMillis(50);
 
     private static final System.Logger LOG = System.getLogger(SpooledStore.class.getName());
 
@@ -60,6 +71,11 @@ public final class SpooledStore implements ResultStore {
     private final Counter rejectedCounter;
     private final Counter writesCounter;
     private final Thread writer;
+    /** Moves points from a queue more than half full to the journal while the writer is stuck in a write. */
+    private final Thread spooler;
+    private final int highWater;
+    /** Held while points go from the queue to the journal, so that two threads' batches keep their order. */
+    private final Object queueToJournal = new Object();
     private final ScheduledExecutorService syncer;
     private final java.util.concurrent.ExecutorService queries;
 
@@ -96,6 +112,9 @@ public final class SpooledStore implements ResultStore {
                 .description("writes to the store, each a batch of points, whether it succeeded or not").register(registry);
         this.writer = new Thread(this::run, "steamtally-store-writer-" + store);
         this.writer.setDaemon(true);
+        this.highWater = Math.max(1, settings.queueCapacity() / 2);
+        this.spooler = new Thread(this::relieve, "steamtally-store-spooler-" + store);
+        this.spooler.setDaemon(true);
         this.queries = Executors.newSingleThreadExecutor(r -> {
             Thread t = new Thread(r, "steamtally-store-query-" + store);
             t.setDaemon(true);
@@ -118,6 +137,7 @@ public final class SpooledStore implements ResultStore {
         long ms = settings.syncInterval().toMillis();
         s.syncer.scheduleWithFixedDelay(s::sync, ms, ms, TimeUnit.MILLISECONDS);
         s.writer.start();
+        s.spooler.start();
         return s;
     }
 
@@ -178,9 +198,49 @@ public final class SpooledStore implements ResultStore {
             }
             overflow.add(p);
         }
+        if (queue.size() > highWater) {
+            LockSupport.unpark(spooler);
+        }
         if (overflow != null) {
+            // The spooler has not kept the queue from filling: the disk is slow too. Wait for it here
+            // rather than lose the points.
             spool(overflow);
             handled(overflow.size());
+        }
+    }
+
+    /**
+     * The spooler's loop: whenever the queue is more than half full, moves the oldest points in it to
+     * the journal, a batch at a time, until it is no more than half full. The writer, once its write
+     * returns, finds the journal pending and replays it in order behind what it was writing.
+     */
+    private void relieve() {
+        while (!closing) {
+            LockSupport.parkNanos(this, SPOOLER_POLL.toNanos());
+            try {
+                while (queue.size() > highWater && !closing) {
+                    int moved = queueToJournal(settings.batchSize());
+                    if (moved == 0) {
+                        break;
+                    }
+                }
+            } catch (RuntimeException e) {
+                // The spooler must outlive one bad batch, like the writer.
+                LOG.log(System.Logger.Level.ERROR, "store spooler (" + backend.name() + "): " + e, e);
+            }
+        }
+    }
+
+    /** Moves up to {@code max} of the oldest queued points to the journal; returns how many. */
+    private int queueToJournal(int max) {
+        synchronized (queueToJournal) {
+            List<Point> batch = new ArrayList<>(Math.min(max, 4096));
+            queue.drainTo(batch, max);
+            if (!batch.isEmpty()) {
+                spool(batch);
+                handled(batch.size());
+            }
+            return batch.size();
         }
     }
 
@@ -236,18 +296,17 @@ public final class SpooledStore implements ResultStore {
     private void run() {
         while (true) {
             try {
-                boolean pending = !journal.isEmpty();
                 if (closing && queue.isEmpty()) {
                     return;
                 }
-                List<Point> batch = drain(pending);
-                if (!batch.isEmpty()) {
-                    if (pending || down) {
-                        spool(batch);
-                    } else {
+                if (!journal.isEmpty() || down) {
+                    journalQueued();
+                } else {
+                    List<Point> batch = drain();
+                    if (!batch.isEmpty()) {
                         direct(batch);
+                        handled(batch.size());
                     }
-                    handled(batch.size());
                 }
                 if (!journal.isEmpty() && ready() && !closing) {
                     replayStep();
@@ -263,24 +322,42 @@ public final class SpooledStore implements ResultStore {
         }
     }
 
-    private List<Point> drain(boolean pending) throws InterruptedException {
-        List<Point> batch = new ArrayList<>(Math.min(settings.batchSize(), 4096));
-        Duration timeout = IDLE_POLL;
-        if (pending && ready()) {
-            timeout = Duration.ZERO;
-        } else if (pending || down) {
+    /**
+     * Behind the journal, or while the store is down: moves a batch of queued points to the journal,
+     * behind what is there, waiting for points at most until the next attempt on the store is due. The
+     * wait holds the queue-to-journal lock, which the spooler needs only when the queue is half full,
+     * and then the wait is over at once.
+     */
+    private void journalQueued() throws InterruptedException {
+        Duration timeout = Duration.ZERO;
+        if (!ready()) {
             Duration untilRetry = Duration.between(clock.instant(), nextAttempt);
-            if (untilRetry.compareTo(timeout) < 0) {
-                timeout = untilRetry.isNegative() ? Duration.ZERO : untilRetry;
-            }
+            timeout = untilRetry.compareTo(IDLE_POLL) < 0 ? untilRetry : IDLE_POLL;
+        } else if (journal.isEmpty()) {
+            timeout = IDLE_POLL; // down, due for an attempt, with nothing to replay: wait for a point to try with
         }
-        Point first = timeout.isZero() ? queue.poll() : queue.poll(timeout.toNanos(), TimeUnit.NANOSECONDS);
+        synchronized (queueToJournal) {
+            Point first = timeout.isZero() || timeout.isNegative() ? queue.poll()
+                    : queue.poll(timeout.toNanos(), TimeUnit.NANOSECONDS);
+            if (first == null) {
+                return;
+            }
+            List<Point> batch = new ArrayList<>(Math.min(settings.batchSize(), 4096));
+            batch.add(first);
+            queue.drainTo(batch, settings.batchSize() - 1);
+            spool(batch);
+            handled(batch.size());
+        }
+    }
+
+    /** Takes the next batch for a direct write, waiting up to {@link #IDLE_POLL} for its first point. */
+    private List<Point> drain() throws InterruptedException {
+        List<Point> batch = new ArrayList<>(Math.min(settings.batchSize(), 4096));
+        Point first = queue.poll(IDLE_POLL.toNanos(), TimeUnit.NANOSECONDS);
         if (first != null) {
             batch.add(first);
             queue.drainTo(batch, settings.batchSize() - 1);
-            if (!pending && !down) {
-                gather(batch);
-            }
+            gather(batch);
         }
         return batch;
     }
@@ -457,7 +534,9 @@ public final class SpooledStore implements ResultStore {
             return;
         }
         closing = true;
+        LockSupport.unpark(spooler);
         try {
+            spooler.join(Duration.ofSeconds(30).toMillis());
             writer.join(Duration.ofSeconds(30).toMillis());
             if (writer.isAlive()) {
                 writer.interrupt();

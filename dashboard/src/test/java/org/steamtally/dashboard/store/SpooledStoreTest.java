@@ -12,7 +12,10 @@ import java.time.Duration;
 import java.time.Instant;
 import java.util.ArrayList;
 import java.util.Collections;
+import java.util.HashSet;
 import java.util.List;
+import java.util.concurrent.CountDownLatch;
+import java.util.concurrent.TimeUnit;
 import java.util.concurrent.atomic.AtomicLong;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
@@ -24,7 +27,7 @@ class SpooledStoreTest {
     Path dir;
 
     /** A backend that records what it is given, and in how many writes, and fails while told to. */
-    static final class FakeBackend extends WriteOnlyBackend {
+    static class FakeBackend extends WriteOnlyBackend {
         final List<Point> written = Collections.synchronizedList(new ArrayList<>());
         final List<Integer> batches = Collections.synchronizedList(new ArrayList<>());
         volatile boolean down;
@@ -101,6 +104,52 @@ class SpooledStoreTest {
             assertEquals(1, listener.recoveries.get());
             assertEquals(0.0, meters.get(SpooledStore.SPOOL_BYTES).gauge().value());
             assertEquals(0.0, meters.get(SpooledStore.QUEUE_DEPTH).gauge().value());
+        }
+    }
+
+    @Test
+    void whileAWriteHangsTheSpoolerMovesTheQueueToTheJournalAndNoPointIsLost() throws Exception {
+        CountDownLatch hanging = new CountDownLatch(1);
+        CountDownLatch release = new CountDownLatch(1);
+        FakeBackend backend = new FakeBackend() {
+            @Override
+            public void write(List<Point> points) throws StoreUnavailableException {
+                if (hanging.getCount() > 0) {
+                    // the first write hangs, as one to a store that stopped answering does until it times out
+                    hanging.countDown();
+                    try {
+                        release.await();
+                    } catch (InterruptedException e) {
+                        Thread.currentThread().interrupt();
+                    }
+                }
+                super.write(points);
+            }
+        };
+        int perRecord = ResultPoints.of(StoreFixtures.record(T0, 0)).size();
+        SpoolSettings small = settings().withQueueCapacity(8 * perRecord).withBatchSize(perRecord);
+        SimpleMeterRegistry meters = new SimpleMeterRegistry();
+        try (SpooledStore store = SpooledStore.open(backend, small, meters, StoreListener.NONE, Clock.systemUTC())) {
+            store.writeResult(StoreFixtures.record(T0, 0));
+            assertTrue(hanging.await(10, TimeUnit.SECONDS), "the writer took the first record and hangs");
+            for (int k = 1; k < 100; k++) {
+                store.writeResult(StoreFixtures.record(T0.plusSeconds(k), k));
+            }
+            // 99 records into a queue with room for 8, while the only write hangs: the spooler takes the
+            // queue down to half full or less, into the journal
+            long deadline = System.nanoTime() + Duration.ofSeconds(10).toNanos();
+            while (meters.get(SpooledStore.QUEUE_DEPTH).gauge().value() > 4 * perRecord && System.nanoTime() < deadline) {
+                Thread.sleep(10);
+            }
+            assertTrue(meters.get(SpooledStore.QUEUE_DEPTH).gauge().value() <= 4 * perRecord,
+                    "queue relieved while the write hangs: " + meters.get(SpooledStore.QUEUE_DEPTH).gauge().value());
+            assertTrue(store.spooledPoints() >= 99 * perRecord - 8 * perRecord, "journaled: " + store.spooledPoints());
+            release.countDown();
+            assertTrue(store.awaitDrained(Duration.ofSeconds(30)));
+            // order is not promised across a hang (see SpooledStore): every point, each once
+            List<Point> expected = points(0, 100);
+            assertEquals(expected.size(), backend.written.size(), "no point lost or written twice");
+            assertEquals(new HashSet<>(expected), new HashSet<>(backend.written));
         }
     }
 
