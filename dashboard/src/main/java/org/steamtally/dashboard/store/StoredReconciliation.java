@@ -61,26 +61,35 @@ public record StoredReconciliation(Instant timestamp, String site, String unit, 
      * The reconciliation of a result record as the store keeps it, when the global test was made
      * (status {@code passed} or {@code failed}); empty otherwise, since a reconciliation that did not
      * run, found nothing to check or did not converge has no χ² to keep. Of the sensors, those with a
-     * measured and a reconciled value, its uncertainty and an individual test value are kept: a
-     * quantity without a test value is not redundant, so its reconciled value is its measured one.
+     * measured and a reconciled value, its uncertainty and an individual test value, all finite, are
+     * kept: a quantity without a test value is not redundant, so its reconciled value is its measured
+     * one. This is the one mapping: {@link ResultStore#writeResult} stores it with the record, at
+     * the same identity a second writer would overwrite.
      */
     public static Optional<StoredReconciliation> of(UnitResult r) {
         ReconciliationResult rec = r.reconciliation();
         boolean tested = ReconciliationResult.PASSED.equals(rec.status())
                 || ReconciliationResult.FAILED.equals(rec.status());
-        if (!tested || rec.chi2Limit().isEmpty()) {
+        if (!tested || rec.chi2Limit().isEmpty() || !Double.isFinite(rec.chi2())
+                || !Double.isFinite(rec.chi2Limit().getAsDouble())) {
             return Optional.empty();
         }
         List<Sensor> sensors = new java.util.ArrayList<>(rec.sensors().size());
         for (ReconciledSensor s : rec.sensors()) {
-            if (s.measured().isPresent() && s.reconciled().isPresent() && s.sigmaReconciled().isPresent()
-                    && s.testValue().isPresent()) {
+            if (kept(s)) {
                 sensors.add(new Sensor(s.id(), s.measured().getAsDouble(), s.reconciled().getAsDouble(),
                         s.sigmaReconciled().getAsDouble(), s.testValue().getAsDouble(), s.suspect()));
             }
         }
         return Optional.of(new StoredReconciliation(r.timestamp(), r.site(), r.unit(), rec.chi2(),
                 rec.chi2Limit().getAsDouble(), rec.redundancy(), rec.passed(), sensors));
+    }
+
+    private static boolean kept(ReconciledSensor s) {
+        return s.measured().isPresent() && Double.isFinite(s.measured().getAsDouble())
+                && s.reconciled().isPresent() && Double.isFinite(s.reconciled().getAsDouble())
+                && s.sigmaReconciled().isPresent() && Double.isFinite(s.sigmaReconciled().getAsDouble())
+                && s.testValue().isPresent() && Double.isFinite(s.testValue().getAsDouble());
     }
 
     private static void finite(double v, String name, String where) {

@@ -24,8 +24,6 @@ import org.steamtally.calc.alarm.AlarmRecord;
 import org.steamtally.calc.alarm.AlarmSettings;
 import org.steamtally.calc.alarm.AlarmState;
 import org.steamtally.calc.alarm.ReconciliationInput;
-import org.steamtally.calc.cycle.ReconciledSensor;
-import org.steamtally.calc.cycle.ReconciliationResult;
 import org.steamtally.calc.cycle.Snapshot;
 import org.steamtally.calc.cycle.UnitResult;
 import org.steamtally.calc.plant.UnitDescription;
@@ -361,8 +359,7 @@ public final class UnitMonitor implements AutoCloseable {
                 calcTime.record(System.nanoTime() - t1, TimeUnit.NANOSECONDS);
             }
         }
-        store.writeResult(result);
-        storedReconciliation(result).ifPresent(store::writeReconciliation);
+        store.writeResult(result); // the record's reconciliation goes with it (StoredReconciliation.of)
         if (!events.isEmpty()) {
             afterEvents(events);
         }
@@ -421,33 +418,6 @@ public final class UnitMonitor implements AutoCloseable {
                 LOG.warn("unit {}: window alarm listener failed: {}", unit.id(), ex.toString());
             }
         }
-    }
-
-    /**
-     * The reconciliation part of a record as the store keeps it; empty when no test ran (no
-     * redundancy, not converged, not run). Sensors without a measured or reconciled value are left
-     * out; a just-determined sensor's test value is 0, since its adjustment is zero by construction.
-     */
-    static Optional<StoredReconciliation> storedReconciliation(UnitResult r) {
-        ReconciliationResult rec = r.reconciliation();
-        if (rec.chi2Limit().isEmpty() || !Double.isFinite(rec.chi2())) {
-            return Optional.empty();
-        }
-        List<StoredReconciliation.Sensor> sensors = new ArrayList<>();
-        for (ReconciledSensor s : rec.sensors()) {
-            if (s.measured().isEmpty() || s.reconciled().isEmpty() || s.sigmaReconciled().isEmpty()) {
-                continue;
-            }
-            double test = s.testValue().orElse(0.0);
-            if (!Double.isFinite(s.measured().getAsDouble()) || !Double.isFinite(s.reconciled().getAsDouble())
-                    || !Double.isFinite(s.sigmaReconciled().getAsDouble()) || !Double.isFinite(test)) {
-                continue;
-            }
-            sensors.add(new StoredReconciliation.Sensor(s.id(), s.measured().getAsDouble(),
-                    s.reconciled().getAsDouble(), s.sigmaReconciled().getAsDouble(), test, s.suspect()));
-        }
-        return Optional.of(new StoredReconciliation(r.timestamp(), r.site(), r.unit(), rec.chi2(),
-                rec.chi2Limit().getAsDouble(), rec.redundancy(), rec.passed(), sensors));
     }
 
     /** Stops intake, lets the snapshot in hand finish, saves the alarm state. */

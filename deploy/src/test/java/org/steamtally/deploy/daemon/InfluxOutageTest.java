@@ -150,10 +150,8 @@ class InfluxOutageTest {
             Map<Measurement, Set<String>> expected = new HashMap<>();
             for (UnitResult r : results) {
                 List<Point> points = new ArrayList<>(ResultPoints.of(r));
-                // The store writes a result's reconciliation with it; the unit's monitor writes its own
-                // fuller one (every sensor with a reconciled value) at the same identity.
+                // The store writes a result's reconciliation with it.
                 StoredReconciliation.of(r).ifPresent(rec -> points.addAll(ResultPoints.of(rec)));
-                UnitMonitor.storedReconciliation(r).ifPresent(rec -> points.addAll(ResultPoints.of(rec)));
                 for (Point p : points) {
                     if (!p.isEmpty()) {
                         expected.computeIfAbsent(p.measurement(), m -> new HashSet<>()).add(key(p.id(), p.timestampMs()));

@@ -17,21 +17,29 @@ import org.steamtally.dashboard.store.StoredAlarmEvent;
 import org.steamtally.dashboard.store.StoredReading;
 import org.steamtally.dashboard.store.StoredReconciliation;
 
-/** A store that keeps what it is given in lists, for tests of the wiring. Queries are not offered. */
+/**
+ * A store that keeps what it is given in lists, for tests of the wiring. Queries are not offered. A
+ * result's reconciliation is kept with it, as the real store keeps it; reconciliations written on
+ * their own are kept apart.
+ */
 final class RecordingStore implements ResultStore {
 
     final List<UnitResult> results = new CopyOnWriteArrayList<>();
+    /** The reconciliations stored with the results. */
     final List<StoredReconciliation> reconciliations = new CopyOnWriteArrayList<>();
+    /** Reconciliations written on their own, not with a result. */
+    final List<StoredReconciliation> separateReconciliations = new CopyOnWriteArrayList<>();
     final List<StoredAlarmEvent> alarmEvents = new CopyOnWriteArrayList<>();
 
     @Override
     public void writeResult(UnitResult result) {
         results.add(result);
+        StoredReconciliation.of(result).ifPresent(reconciliations::add);
     }
 
     @Override
     public void writeReconciliation(StoredReconciliation reconciliation) {
-        reconciliations.add(reconciliation);
+        separateReconciliations.add(reconciliation);
     }
 
     @Override
