@@ -143,10 +143,11 @@ public final class Daemon implements AutoCloseable {
                 LOG.warn("broker connection down for {}", down);
             }
         }, config.env()::get);
+        EvaluationSlots slots = EvaluationSlots.perCore();
         for (UnitDescription unit : plant.units()) {
             UnitMonitor m = new UnitMonitor(plant.siteId(), unit, config.alarms(), config.window(),
                     config.collector().snapshotPeriod(), collector.slot(unit.id())::take, store, live,
-                    new AlarmStateFile(config.dataDir(), unit.id()), registry, clock);
+                    new AlarmStateFile(config.dataDir(), unit.id()), registry, clock, slots);
             monitors.add(m);
         }
         board = new EngineAlarmBoard(monitors);

@@ -77,6 +77,7 @@ public final class UnitMonitor implements AutoCloseable {
     private final InMemoryLiveResults live;
     private final AlarmStateFile stateFile;
     private final Clock clock;
+    private final EvaluationSlots slots;
     private final Timer calcTime;
     private final Timer snapshotLatency;
     private final ExecutorService worker;
@@ -106,6 +107,18 @@ public final class UnitMonitor implements AutoCloseable {
     public UnitMonitor(String site, UnitDescription unit, AlarmSettings settings, WindowChannelSettings window,
                        Duration snapshotPeriod, SnapshotSource source, ResultStore store, InMemoryLiveResults live,
                        AlarmStateFile stateFile, MeterRegistry registry, Clock clock) {
+        this(site, unit, settings, window, snapshotPeriod, source, store, live, stateFile, registry, clock,
+                EvaluationSlots.unlimited());
+    }
+
+    /**
+     * As above, evaluating only while it holds one of {@code slots}, which the units of a daemon
+     * share.
+     */
+    UnitMonitor(String site, UnitDescription unit, AlarmSettings settings, WindowChannelSettings window,
+                Duration snapshotPeriod, SnapshotSource source, ResultStore store, InMemoryLiveResults live,
+                AlarmStateFile stateFile, MeterRegistry registry, Clock clock, EvaluationSlots slots) {
+        this.slots = slots;
         this.site = site;
         this.unit = unit;
         this.evaluator = ReconcilingEvaluator.compile(site, unit);
@@ -319,8 +332,40 @@ public final class UnitMonitor implements AutoCloseable {
         }
     }
 
-    /** One snapshot, start to end; a failure is logged and loses only this snapshot. */
+    /**
+     * One snapshot, start to end; a failure is logged and loses only this snapshot. The evaluation
+     * holds one of the daemon's evaluation slots; storing, publishing and saving the alarm state do
+     * not.
+     */
     void process(Snapshot snapshot) {
+        Evaluated e;
+        slots.acquire();
+        try {
+            e = evaluate(snapshot);
+        } finally {
+            slots.release();
+        }
+        if (e == null) {
+            return;
+        }
+        store.writeResult(e.result()); // the record's reconciliation goes with it (StoredReconciliation.of)
+        if (!e.events().isEmpty()) {
+            afterEvents(e.events());
+        }
+        if (!e.windowEvents().isEmpty()) {
+            afterWindowEvents(e.windowEvents());
+        }
+        live.publish(e.result());
+        processed++;
+        snapshotLatency.record(Duration.between(snapshot.timestamp(), clock.instant()).abs());
+    }
+
+    /** A snapshot's result with the alarm events of both channels. */
+    private record Evaluated(UnitResult result, List<AlarmEvent> events, List<AlarmEvent> windowEvents) {
+    }
+
+    /** Signal checks, cycle model, reconciliation and alarms of both channels; null when it failed (logged). */
+    private Evaluated evaluate(Snapshot snapshot) {
         long t0 = System.nanoTime();
         UnitResult result;
         List<AlarmEvent> events;
@@ -340,7 +385,7 @@ public final class UnitMonitor implements AutoCloseable {
         } catch (RuntimeException e) {
             LOG.error("unit {}: snapshot at {} could not be evaluated: {}", unit.id(), snapshot.timestamp(),
                     e.toString());
-            return;
+            return null;
         } finally {
             calcTime.record(System.nanoTime() - t0, TimeUnit.NANOSECONDS);
         }
@@ -359,16 +404,7 @@ public final class UnitMonitor implements AutoCloseable {
                 calcTime.record(System.nanoTime() - t1, TimeUnit.NANOSECONDS);
             }
         }
-        store.writeResult(result); // the record's reconciliation goes with it (StoredReconciliation.of)
-        if (!events.isEmpty()) {
-            afterEvents(events);
-        }
-        if (!windowEvents.isEmpty()) {
-            afterWindowEvents(windowEvents);
-        }
-        live.publish(result);
-        processed++;
-        snapshotLatency.record(Duration.between(snapshot.timestamp(), clock.instant()).abs());
+        return new Evaluated(result, events, windowEvents);
     }
 
     private void afterEvents(List<AlarmEvent> events) {
