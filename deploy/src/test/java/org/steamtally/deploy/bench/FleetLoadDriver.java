@@ -551,8 +551,9 @@ public final class FleetLoadDriver {
         }
         Thread t = new Thread(() -> {
             try (var out = Files.newBufferedWriter(work.resolve("backlog.tsv"))) {
-                out.write("seconds\tqueued_points\tjournal_bytes\tstore_writes\n");
+                out.write("seconds\tqueued_points\tjournal_bytes\tstore_writes\tevaluation_ms\tsnapshot_to_result_ms\n");
                 boolean behind = false;
+                Map<String, Double> previous = Map.of();
                 while (!stopping) {
                     Map<String, Double> m = metrics(httpPort);
                     long at = System.currentTimeMillis();
@@ -567,9 +568,14 @@ public final class FleetLoadDriver {
                             behind = false;
                             backlogClearedAtMillis = at;
                         }
-                        out.write(String.format(Locale.ROOT, "%.1f\t%.0f\t%.0f\t%.0f%n", (at - startSecond * 1000) / 1000.0,
-                                queued, spooled, m.getOrDefault("steamtally_store_writes_total", 0.0)));
+                        // the daemon's own timers over the interval: is it computing slowly, or waiting?
+                        out.write(String.format(Locale.ROOT, "%.1f\t%.0f\t%.0f\t%.0f\t%s\t%s%n",
+                                (at - startSecond * 1000) / 1000.0, queued, spooled,
+                                m.getOrDefault("steamtally_store_writes_total", 0.0),
+                                meanMillis(previous, m, "steamtally_calc_time_seconds"),
+                                meanMillis(previous, m, "steamtally_snapshot_latency_seconds")));
                         out.flush();
+                        previous = m;
                     }
                     Thread.sleep(every * 1000L);
                 }
@@ -664,8 +670,14 @@ public final class FleetLoadDriver {
 
     /** The mean of a timer between two samples, in ms, from its {@code _sum} and {@code _count}; "–" when empty. */
     private static String meanMillis(Sample a, Sample b, String timer) {
-        double count = delta(a, b, timer + "_count");
-        return count > 0 ? String.format(Locale.ROOT, "%.1f", 1000 * delta(a, b, timer + "_sum") / count) : "–";
+        return meanMillis(a.metrics(), b.metrics(), timer);
+    }
+
+    /** A timer's mean between two scrapes of /metrics, ms; "–" when it did not run between them. */
+    private static String meanMillis(Map<String, Double> a, Map<String, Double> b, String timer) {
+        double count = b.getOrDefault(timer + "_count", 0.0) - a.getOrDefault(timer + "_count", 0.0);
+        double sum = b.getOrDefault(timer + "_sum", 0.0) - a.getOrDefault(timer + "_sum", 0.0);
+        return count > 0 ? String.format(Locale.ROOT, "%.1f", 1000 * sum / count) : "–";
     }
 
     private static long processTicks(long pid) {
@@ -893,7 +905,8 @@ public final class FleetLoadDriver {
                 storeDrained ? "caught up" : "still behind", storeDrain.toSeconds());
         if (opts.containsKey("trace")) {
             p.line("store backlog traced every %s s (backlog.tsv): peak %.0f points queued, %.0f journal bytes; %s%s",
-                    opts.get("trace"), peakQueued, peakSpoolBytes, backlogClearedAtMillis < 0 ? "journal never emptied after filling"
+                    opts.get("trace"), peakQueued, peakSpoolBytes, peakSpoolBytes == 0 ? "journal empty throughout"
+                            : backlogClearedAtMillis < 0 ? "journal never emptied after filling"
                             : String.format(Locale.ROOT, "journal last emptied %.0f s after publishing started",
                                     (backlogClearedAtMillis - windowStart * 1000 + warmup * 1000L) / 1000.0),
                     stallEndMillis < 0 || backlogClearedAtMillis < 0 ? "" : String.format(Locale.ROOT,
