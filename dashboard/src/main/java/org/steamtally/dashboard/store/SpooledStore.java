@@ -219,7 +219,10 @@ public final class SpooledStore implements ResultStore {
             LockSupport.parkNanos(this, SPOOLER_POLL.toNanos());
             try {
                 while (queue.size() > highWater && !closing) {
-                    int moved = queueToJournal(settings.batchSize());
+                    int moved;
+                    synchronized (queueToJournal) {
+                        moved = queueToJournal(null);
+                    }
                     if (moved == 0) {
                         break;
                     }
@@ -231,17 +234,21 @@ public final class SpooledStore implements ResultStore {
         }
     }
 
-    /** Moves up to {@code max} of the oldest queued points to the journal; returns how many. */
-    private int queueToJournal(int max) {
-        synchronized (queueToJournal) {
-            List<Point> batch = new ArrayList<>(Math.min(max, 4096));
-            queue.drainTo(batch, max);
-            if (!batch.isEmpty()) {
-                spool(batch);
-                handled(batch.size());
-            }
-            return batch.size();
+    /**
+     * Moves a batch of the oldest queued points, after {@code first} (taken from the queue already,
+     * or null), to the journal; returns how many. The caller holds the {@link #queueToJournal} lock.
+     */
+    private int queueToJournal(Point first) {
+        List<Point> batch = new ArrayList<>(Math.min(settings.batchSize(), 4096));
+        if (first != null) {
+            batch.add(first);
         }
+        queue.drainTo(batch, settings.batchSize() - batch.size());
+        if (!batch.isEmpty()) {
+            spool(batch);
+            handled(batch.size());
+        }
+        return batch.size();
     }
 
     @Override
@@ -339,14 +346,9 @@ public final class SpooledStore implements ResultStore {
         synchronized (queueToJournal) {
             Point first = timeout.isZero() || timeout.isNegative() ? queue.poll()
                     : queue.poll(timeout.toNanos(), TimeUnit.NANOSECONDS);
-            if (first == null) {
-                return;
+            if (first != null) {
+                queueToJournal(first);
             }
-            List<Point> batch = new ArrayList<>(Math.min(settings.batchSize(), 4096));
-            batch.add(first);
-            queue.drainTo(batch, settings.batchSize() - 1);
-            spool(batch);
-            handled(batch.size());
         }
     }
 
