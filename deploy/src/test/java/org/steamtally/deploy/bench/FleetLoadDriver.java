@@ -549,7 +549,7 @@ public final class FleetLoadDriver {
         if (every <= 0) {
             return;
         }
-        Thread t = new Thread(() -> {
+        inBackground("fleet-backlog-trace", "backlog trace", () -> {
             try (var out = Files.newBufferedWriter(work.resolve("backlog.tsv"))) {
                 out.write("seconds\tqueued_points\tjournal_bytes\tstore_writes\tevaluation_ms\tsnapshot_to_result_ms\n");
                 boolean behind = false;
@@ -579,14 +579,8 @@ public final class FleetLoadDriver {
                     }
                     Thread.sleep(every * 1000L);
                 }
-            } catch (IOException e) {
-                log("backlog trace stopped: " + e);
-            } catch (InterruptedException e) {
-                Thread.currentThread().interrupt();
             }
-        }, "fleet-backlog-trace");
-        t.setDaemon(true);
-        t.start();
+        });
     }
 
     /**
@@ -601,21 +595,33 @@ public final class FleetLoadDriver {
         }
         int seconds = Integer.parseInt(stall.substring(0, stall.indexOf('@')));
         int at = Integer.parseInt(stall.substring(stall.indexOf('@') + 1));
+        inBackground("fleet-store-stall", "stall", () -> {
+            sleepUntilMillis((startSecond + at) * 1000);
+            signal(influxd, "STOP");
+            log("influxd stopped (SIGSTOP) for " + seconds + " s");
+            sleepUntilMillis((startSecond + at + seconds) * 1000);
+            signal(influxd, "CONT");
+            stallEndMillis = System.currentTimeMillis();
+            log("influxd resumed (SIGCONT)");
+        });
+    }
+
+    /** A task of one of the driver's background threads. */
+    private interface BackgroundTask {
+        void run() throws IOException, InterruptedException;
+    }
+
+    /** Runs {@code task} on a daemon thread; a failure is logged as {@code what} stopping. */
+    private static void inBackground(String name, String what, BackgroundTask task) {
         Thread t = new Thread(() -> {
             try {
-                sleepUntilMillis((startSecond + at) * 1000);
-                signal(influxd, "STOP");
-                log("influxd stopped (SIGSTOP) for " + seconds + " s");
-                sleepUntilMillis((startSecond + at + seconds) * 1000);
-                signal(influxd, "CONT");
-                stallEndMillis = System.currentTimeMillis();
-                log("influxd resumed (SIGCONT)");
+                task.run();
             } catch (IOException e) {
-                log("stall failed: " + e);
+                log(what + " stopped: " + e);
             } catch (InterruptedException e) {
                 Thread.currentThread().interrupt();
             }
-        }, "fleet-store-stall");
+        }, name);
         t.setDaemon(true);
         t.start();
     }
